@@ -1,0 +1,3 @@
+export * from './client.js';
+export * as schema from './schema/index.js';
+export * from './schema/index.js';

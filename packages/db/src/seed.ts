@@ -1,0 +1,68 @@
+import { fileURLToPath } from 'node:url';
+import bcrypt from 'bcrypt';
+import { sql } from 'drizzle-orm';
+import { createDb, type Database } from './client.js';
+import { DEMO_PASSWORD, demoCustomers, demoHouseholds, demoOperation, demoUsers } from './demo/people.js';
+import { memberships, operations, parties, users } from './schema/index.js';
+
+export const BCRYPT_COST = 12;
+
+/** Seeds the invented demo outfit once; a second run finds the owner and leaves everything alone. */
+export async function seedDemo(db: Database): Promise<'seeded' | 'already-seeded'> {
+  return db.transaction(async (tx) => {
+    // Serialises concurrent seed runs so two starts cannot both insert the demo.
+    await tx.execute(sql`select pg_advisory_xact_lock(424242)`);
+    const existing = await tx.select({ id: users.id }).from(users).where(sql`lower(${users.email}) = 'owner@hitchbook.test'`);
+    if (existing.length > 0) return 'already-seeded';
+
+    const [operation] = await tx.insert(operations).values(demoOperation).returning();
+    if (!operation) throw new Error('operation insert returned nothing');
+
+    const partyIds = new Map<string, string>();
+    for (const h of demoHouseholds) {
+      const [row] = await tx
+        .insert(parties)
+        .values({ operationId: operation.id, kind: 'household', name: h.name, relationship: h.relationship, notes: h.notes })
+        .returning({ id: parties.id });
+      partyIds.set(h.key, row!.id);
+    }
+    for (const c of demoCustomers) {
+      const [row] = await tx
+        .insert(parties)
+        .values({ operationId: operation.id, kind: 'customer', name: c.name, relationship: c.relationship, email: c.email, address: c.address })
+        .returning({ id: parties.id });
+      partyIds.set(c.key, row!.id);
+    }
+
+    for (const u of demoUsers) {
+      const passwordHash = await bcrypt.hash(DEMO_PASSWORD, BCRYPT_COST);
+      const [user] = await tx
+        .insert(users)
+        .values({ email: u.email, name: u.name, passwordHash, passwordChangedAt: new Date() })
+        .returning({ id: users.id });
+      await tx.insert(memberships).values({
+        operationId: operation.id,
+        userId: user!.id,
+        role: u.role,
+        partyId: u.party ? partyIds.get(u.party)! : null,
+      });
+    }
+    return 'seeded';
+  });
+}
+
+if (process.argv[1] === fileURLToPath(import.meta.url)) {
+  const url = process.env.DATABASE_URL;
+  if (!url) {
+    console.error('DATABASE_URL is not set.');
+    process.exit(1);
+  }
+  const handle = createDb(url, { max: 1, applicationName: 'hitchbook-seed' });
+  seedDemo(handle.db)
+    .then((result) => console.log(result === 'seeded' ? 'Demo data seeded.' : 'Demo data already present; nothing changed.'))
+    .catch((err: unknown) => {
+      console.error('Seeding failed:', err instanceof Error ? err.message : err);
+      process.exitCode = 1;
+    })
+    .finally(() => handle.close());
+}
