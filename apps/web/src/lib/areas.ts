@@ -1,0 +1,71 @@
+import type { Role } from '@hitchbook/shared/roles';
+import {
+  IconCalculator,
+  IconGauge,
+  IconUserCircle,
+  IconUsers,
+  IconUsersGroup,
+  type Icon,
+} from '@tabler/icons-react';
+import { paths } from './paths';
+
+/** `view` shows an area; `manage` also shows its create, edit and remove controls. */
+export type Access = 'view' | 'manage';
+
+export interface AreaLink {
+  label: string;
+  href: string;
+}
+
+export interface Area {
+  key: string;
+  label: string;
+  href: string;
+  icon: Icon;
+  access: Partial<Record<Role, Access>>;
+  /** Sub-pages shown under the area in the navigation; the area's own href is the first. */
+  links?: readonly AreaLink[];
+}
+
+const everyone = { owner: 'manage', partner: 'manage', operator: 'manage', bookkeeper: 'manage', customer: 'manage' } as const;
+
+/**
+ * Which role sees which part of the app, in navigation order. The server enforces the same
+ * rules on every request; this map only decides what to show. A new area is one entry here.
+ */
+export const AREAS = [
+  { key: 'dashboard', label: 'Dashboard', href: paths.dashboard(), icon: IconGauge, access: everyone },
+  {
+    key: 'estimates',
+    label: 'Estimates',
+    href: paths.estimates.machineRate(),
+    icon: IconCalculator,
+    // Estimates store nothing, but they are money figures, so operators and customers do not see them.
+    access: { owner: 'manage', partner: 'manage', bookkeeper: 'manage' },
+    links: [
+      { label: 'Machine-hour rate', href: paths.estimates.machineRate() },
+      { label: 'Own or hire', href: paths.estimates.ownOrHire() },
+      { label: 'Joint ownership planner', href: paths.estimates.jointOwnership() },
+    ],
+  },
+  {
+    key: 'parties',
+    label: 'Parties',
+    href: paths.parties(),
+    icon: IconUsersGroup,
+    access: { owner: 'manage', partner: 'manage', bookkeeper: 'view' },
+  },
+  { key: 'users', label: 'Users', href: paths.users(), icon: IconUsers, access: { owner: 'manage', bookkeeper: 'view' } },
+  { key: 'account', label: 'Account', href: paths.account(), icon: IconUserCircle, access: everyone },
+] as const satisfies readonly Area[];
+
+export type AreaKey = (typeof AREAS)[number]['key'];
+
+export function accessTo(role: Role, key: AreaKey): Access | null {
+  const area: Area | undefined = AREAS.find((a) => a.key === key);
+  return area?.access[role] ?? null;
+}
+
+export function areasFor(role: Role): Area[] {
+  return AREAS.filter((area: Area) => area.access[role] !== undefined);
+}

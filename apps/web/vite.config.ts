@@ -1,0 +1,23 @@
+import { defineConfig } from 'vite';
+import react from '@vitejs/plugin-react';
+
+const apiPort = process.env.API_PORT ?? '3001';
+const port = Number(process.env.PORT ?? 3000);
+
+export default defineConfig({
+  plugins: [react()],
+  server: {
+    host: '127.0.0.1',
+    port,
+    strictPort: true,
+    proxy: { '/api': { target: `http://127.0.0.1:${apiPort}`, changeOrigin: false } },
+  },
+  preview: { host: '127.0.0.1', port },
+  build: {
+    outDir: 'dist',
+    emptyOutDir: true,
+    sourcemap: true,
+    // Mantine and React make a large but cacheable entry chunk; route chunks stay small.
+    chunkSizeWarningLimit: 900,
+  },
+});
