@@ -1,0 +1,102 @@
+import { randomUUID } from 'node:crypto';
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { type LogLevel } from '@nestjs/common';
+import { NestFactory } from '@nestjs/core';
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import cookieParser from 'cookie-parser';
+import express, { type NextFunction, type Request, type Response } from 'express';
+import helmet from 'helmet';
+import { AppModule } from './app.module.js';
+import { ErrorFilter } from './common/errors/error.filter.js';
+import type { AppConfig } from './core/config.js';
+
+export const JSON_BODY_LIMIT = '256kb';
+
+export interface CreateAppOptions {
+  logger?: LogLevel[] | false;
+}
+
+export async function createApp(config: AppConfig, options: CreateAppOptions = {}): Promise<NestExpressApplication> {
+  const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(config), {
+    rawBody: true,
+    logger: options.logger ?? ['error', 'warn'],
+  });
+  return configureApp(app, config);
+}
+
+/** Everything around the Nest modules: shared by the server and by the tests' testing-module apps. */
+export function configureApp(app: NestExpressApplication, config: AppConfig): NestExpressApplication {
+  app.useBodyParser('json', { limit: JSON_BODY_LIMIT });
+  app.set('trust proxy', false);
+  app.disable('x-powered-by');
+  app.use(securityHeaders(config));
+  app.use(cookieParser());
+  app.use(requestId);
+  app.use('/api', noStore);
+  if (config.webDist) serveWebApp(app, config.webDist);
+  app.setGlobalPrefix('api');
+  app.useGlobalFilters(new ErrorFilter());
+  return app;
+}
+
+function securityHeaders(config: AppConfig) {
+  const https = config.appUrl.startsWith('https:');
+  return helmet({
+    contentSecurityPolicy: {
+      useDefaults: false,
+      directives: {
+        defaultSrc: ["'self'"],
+        scriptSrc: ["'self'"],
+        // Mantine sets CSS variables and inline style attributes at run time.
+        styleSrc: ["'self'", "'unsafe-inline'"],
+        imgSrc: ["'self'", 'data:', 'blob:'],
+        fontSrc: ["'self'", 'data:'],
+        connectSrc: ["'self'"],
+        workerSrc: ["'self'"],
+        manifestSrc: ["'self'"],
+        objectSrc: ["'none'"],
+        baseUri: ["'self'"],
+        formAction: ["'self'"],
+        frameAncestors: ["'none'"],
+        ...(https ? { upgradeInsecureRequests: [] } : {}),
+      },
+    },
+    strictTransportSecurity: https ? { maxAge: 31536000, includeSubDomains: true } : false,
+    crossOriginEmbedderPolicy: false,
+    referrerPolicy: { policy: 'same-origin' },
+  });
+}
+
+function requestId(req: Request & { requestId?: string }, res: Response, next: NextFunction): void {
+  req.requestId = randomUUID();
+  res.setHeader('X-Request-Id', req.requestId);
+  next();
+}
+
+function noStore(_req: Request, res: Response, next: NextFunction): void {
+  res.setHeader('Cache-Control', 'no-store');
+  next();
+}
+
+/** The API serves the built web app on the same origin; unknown non-API paths get the app shell. */
+function serveWebApp(app: NestExpressApplication, webDist: string): void {
+  const index = join(webDist, 'index.html');
+  if (!existsSync(index)) return;
+  app.use(
+    express.static(webDist, {
+      index: false,
+      setHeaders: (res, path) => {
+        res.setHeader('Cache-Control', path.includes(`${join(webDist, 'assets')}`) ? 'public, max-age=31536000, immutable' : 'no-cache');
+      },
+    }),
+  );
+  app.use((req: Request, res: Response, next: NextFunction) => {
+    if ((req.method === 'GET' || req.method === 'HEAD') && !req.path.startsWith('/api/') && req.path !== '/api') {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(index);
+      return;
+    }
+    next();
+  });
+}

@@ -1,0 +1,25 @@
+import { type DynamicModule, Inject, Module, type OnApplicationShutdown } from '@nestjs/common';
+import { CoreModule } from './core/core.module.js';
+import type { AppConfig } from './core/config.js';
+import { DB, type DbHandle } from './core/database.js';
+import { AuthModule } from './modules/auth/auth.module.js';
+import { DashboardModule } from './modules/dashboard/dashboard.module.js';
+import { HealthModule } from './modules/health/health.module.js';
+import { PartiesModule } from './modules/parties/parties.module.js';
+import { UsersModule } from './modules/users/users.module.js';
+
+@Module({})
+export class AppModule implements OnApplicationShutdown {
+  constructor(@Inject(DB) private readonly dbh: DbHandle) {}
+
+  static forRoot(config: AppConfig): DynamicModule {
+    return {
+      module: AppModule,
+      imports: [CoreModule.forRoot(config), AuthModule, HealthModule, PartiesModule, UsersModule, DashboardModule],
+    };
+  }
+
+  async onApplicationShutdown(): Promise<void> {
+    await this.dbh.close();
+  }
+}

@@ -1,0 +1,21 @@
+import type { Role } from '@hitchbook/shared/roles';
+
+/** The signed-in person as the server resolved them for this request (role read fresh from the database). */
+export interface Actor {
+  userId: string;
+  email: string;
+  name: string;
+  membershipId: string;
+  sessionId: string;
+  operationId: string;
+  operationName: string;
+  role: Role;
+  /** The household (or, for customers, the customer party) this member stands for. */
+  partyId: string | null;
+}
+
+export interface RequestWithActor {
+  actor?: Actor;
+  requestId?: string;
+  ip?: string;
+}
