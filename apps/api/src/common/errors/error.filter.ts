@@ -62,6 +62,9 @@ export class ErrorFilter implements ExceptionFilter {
     }
     if (exception instanceof HttpException) {
       const status = exception.getStatus();
+      if (status === 400 && /JSON/i.test(JSON.stringify(exception.getResponse()))) {
+        return { status, body: { message: 'The request body is not valid JSON.' } };
+      }
       return { status, body: { message: HTTP_MESSAGES[status] ?? 'The request failed.' } };
     }
     // Errors raised by Express's body parser before any route runs.

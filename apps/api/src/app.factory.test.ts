@@ -1,0 +1,61 @@
+import { mkdtempSync, mkdirSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, type TestApp } from './test-support/test-app.js';
+
+let t: TestApp;
+let webDist: string;
+
+beforeAll(async () => {
+  webDist = mkdtempSync(join(tmpdir(), 'hb-web-'));
+  mkdirSync(join(webDist, 'assets'));
+  writeFileSync(join(webDist, 'index.html'), '<!doctype html><title>Hitchbook</title><div id="root"></div>');
+  writeFileSync(join(webDist, 'assets', 'app-abc123.js'), 'console.log(1)');
+  t = await createTestApp({ webDist });
+});
+afterAll(() => t.close());
+
+describe('HTTP surface', () => {
+  it('sets a strict content security policy and hides the framework', async () => {
+    const res = await t.http().get('/api/health');
+    const csp = res.headers['content-security-policy'] as string;
+    expect(csp).toContain("default-src 'self'");
+    expect(csp).toContain("script-src 'self'");
+    expect(csp).toContain("frame-ancestors 'none'");
+    expect(csp).not.toMatch(/script-src[^;]*unsafe-inline/);
+    expect(res.headers['x-content-type-options']).toBe('nosniff');
+    expect(res.headers['x-powered-by']).toBeUndefined();
+    expect(res.headers['cache-control']).toBe('no-store');
+    expect(res.headers['x-request-id']).toMatch(/^[0-9a-f-]{36}$/);
+  });
+
+  it('sends no CORS permission to another origin', async () => {
+    const res = await t.http().options('/api/auth/login').set('Origin', 'https://evil.example').set('Access-Control-Request-Method', 'POST');
+    expect(res.headers['access-control-allow-origin']).toBeUndefined();
+  });
+
+  it('answers JSON 404 for an unknown API path', async () => {
+    const res = await t.http().get('/api/no-such-thing');
+    expect(res.status).toBe(404);
+    expect(res.body).toEqual({ message: 'Not found.' });
+  });
+
+  it('answers 400 for malformed JSON and 413 for an oversized body, without internals', async () => {
+    const bad = await t.http().post('/api/auth/login').set('Content-Type', 'application/json').send('{"email": ');
+    expect(bad.status).toBe(400);
+    expect(bad.body).toEqual({ message: 'The request body is not valid JSON.' });
+    const big = await t.http().post('/api/auth/login').set('Content-Type', 'application/json').send(JSON.stringify({ email: 'a@b.test', password: 'x'.repeat(300 * 1024) }));
+    expect(big.status).toBe(413);
+    expect(JSON.stringify(big.body)).not.toMatch(/at |node_modules/);
+  });
+
+  it('serves the web app shell for app paths and hashed assets with long caching', async () => {
+    const page = await t.http().get('/machines/some/deep/link');
+    expect(page.status).toBe(200);
+    expect(page.text).toContain('<div id="root">');
+    const asset = await t.http().get('/assets/app-abc123.js');
+    expect(asset.status).toBe(200);
+    expect(asset.headers['cache-control']).toContain('immutable');
+  });
+});
