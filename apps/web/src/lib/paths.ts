@@ -9,12 +9,12 @@ function withQuery(path: string, query?: Query): string {
   return search ? `${path}?${search}` : path;
 }
 
-export interface ListQuery {
+export type ListQuery = {
   page?: number;
   pageSize?: number;
   sort?: string;
   q?: string;
-}
+};
 
 /** Every in-app link is built here, so a route can move without hunting for hand-written URLs. */
 export const paths = {

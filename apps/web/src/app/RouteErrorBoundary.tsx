@@ -1,0 +1,49 @@
+import { Alert, Button, Container, Stack, Text, Title } from '@mantine/core';
+import { IconAlertTriangle, IconDatabaseOff } from '@tabler/icons-react';
+import { Navigate, isRouteErrorResponse, useLocation, useRouteError } from 'react-router-dom';
+import { NotAllowed } from '../components/NotAllowed';
+import { NotFound } from '../components/NotFound';
+import { isApiError } from '../lib/api';
+import { paths } from '../lib/paths';
+
+/** A route chunk fails to load after a new version was deployed while the tab stayed open. */
+function isStaleChunk(error: unknown): boolean {
+  return error instanceof TypeError && /dynamically imported module|Importing a module script failed/i.test(error.message);
+}
+
+export function RouteErrorBoundary() {
+  const error = useRouteError();
+  const location = useLocation();
+
+  if (isRouteErrorResponse(error) && error.status === 403) return <NotAllowed />;
+  if (isRouteErrorResponse(error) && error.status === 404) return <NotFound />;
+  if (isApiError(error) && error.status === 403) return <NotAllowed />;
+  if (isApiError(error) && error.status === 404) return <NotFound />;
+  if (isApiError(error) && error.status === 401) {
+    return <Navigate to={paths.signIn({ next: location.pathname + location.search })} replace />;
+  }
+
+  const databaseDown = isApiError(error) && error.status === 503;
+  const staleChunk = isStaleChunk(error);
+  return (
+    <Container size="sm" py="xl">
+      <Stack gap="md">
+        <Title order={1} size="h2">
+          {databaseDown ? "The server can't reach its database" : staleChunk ? 'Hitchbook was updated' : 'Something went wrong'}
+        </Title>
+        <Alert color={databaseDown ? 'clay' : 'red'} icon={databaseDown ? <IconDatabaseOff /> : <IconAlertTriangle />}>
+          <Text>
+            {databaseDown
+              ? 'Nothing is lost. Try again in a few minutes.'
+              : staleChunk
+                ? 'Reload the page to get the new version.'
+                : 'This screen hit an unexpected problem. Reloading usually helps; if it keeps happening, tell the account owner what you were doing.'}
+          </Text>
+        </Alert>
+        <Button onClick={() => window.location.reload()} w="fit-content">
+          Reload
+        </Button>
+      </Stack>
+    </Container>
+  );
+}

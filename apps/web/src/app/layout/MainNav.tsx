@@ -1,0 +1,67 @@
+import { NavLink, ScrollArea, Stack, Text } from '@mantine/core';
+import type { Role } from '@hitchbook/shared/roles';
+import { NavLink as RouterLink, useLocation } from 'react-router-dom';
+import { areasFor, type Area } from '../../lib/areas';
+
+function isActive(pathname: string, href: string): boolean {
+  return href === '/' ? pathname === '/' : pathname === href || pathname.startsWith(`${href}/`);
+}
+
+function AreaLink({ area, pathname }: { area: Area; pathname: string }) {
+  const Icon = area.icon;
+  const links = area.links ?? [];
+  const inArea = isActive(pathname, area.href) || links.some((l) => isActive(pathname, l.href));
+  if (links.length === 0) {
+    return (
+      <NavLink
+        component={RouterLink}
+        to={area.href}
+        label={area.label}
+        leftSection={<Icon size={24} stroke={1.7} />}
+        active={inArea}
+        h={52}
+        fw={600}
+        style={{ borderRadius: 'var(--mantine-radius-md)' }}
+      />
+    );
+  }
+  return (
+    <NavLink
+      label={area.label}
+      leftSection={<Icon size={24} stroke={1.7} />}
+      defaultOpened
+      childrenOffset={36}
+      h={52}
+      fw={600}
+      style={{ borderRadius: 'var(--mantine-radius-md)' }}
+    >
+      {links.map((link) => (
+        <NavLink
+          key={link.href}
+          component={RouterLink}
+          to={link.href}
+          label={link.label}
+          active={isActive(pathname, link.href)}
+          h={48}
+          style={{ borderRadius: 'var(--mantine-radius-md)' }}
+        />
+      ))}
+    </NavLink>
+  );
+}
+
+export function MainNav({ role, operationName }: { role: Role; operationName: string }) {
+  const { pathname } = useLocation();
+  return (
+    <ScrollArea h="100%">
+      <Text hiddenFrom="xs" fw={700} c="harbor.8" px="sm" pb="xs">
+        {operationName}
+      </Text>
+      <Stack gap={4} component="nav" data-testid="main-nav">
+        {areasFor(role).map((area) => (
+          <AreaLink key={area.key} area={area} pathname={pathname} />
+        ))}
+      </Stack>
+    </ScrollArea>
+  );
+}

@@ -1,0 +1,86 @@
+import { createBrowserRouter, redirect, type RouteObject } from 'react-router-dom';
+import { FullPageLoader } from '../components/FullPageLoader';
+import { NotFound } from '../components/NotFound';
+import { restoreSessionOnce } from '../lib/auth';
+import { paths } from '../lib/paths';
+import { redirectIfSignedIn, requireArea, requireSession } from './guards';
+import { AppLayout } from './layout/AppLayout';
+import { PublicLayout } from './layout/PublicLayout';
+import { RouteErrorBoundary } from './RouteErrorBoundary';
+
+// Every page is its own chunk; the estimate pages also pull in the charting library.
+export const routes: RouteObject[] = [
+  {
+    id: 'root',
+    loader: async () => {
+      await restoreSessionOnce();
+      return null;
+    },
+    HydrateFallback: () => <FullPageLoader />,
+    errorElement: <RouteErrorBoundary />,
+    children: [
+      {
+        element: <PublicLayout />,
+        children: [
+          {
+            errorElement: <RouteErrorBoundary />,
+            children: [
+              {
+                path: paths.signIn(),
+                loader: redirectIfSignedIn,
+                lazy: () => import('../features/auth/routes/SignInPage'),
+              },
+              { path: paths.forgotPassword(), lazy: () => import('../features/auth/routes/ForgotPasswordPage') },
+              { path: paths.resetPassword(), lazy: () => import('../features/auth/routes/ResetPasswordPage') },
+              { path: paths.acceptInvite(), lazy: () => import('../features/auth/routes/AcceptInvitePage') },
+            ],
+          },
+        ],
+      },
+      {
+        loader: requireSession,
+        element: <AppLayout />,
+        children: [
+          {
+            errorElement: <RouteErrorBoundary />,
+            children: [
+              { index: true, lazy: () => import('../features/dashboard/routes/DashboardPage') },
+              { path: paths.account(), lazy: () => import('../features/auth/routes/AccountPage') },
+              {
+                path: paths.parties(),
+                loader: requireArea('parties'),
+                lazy: () => import('../features/parties/routes/PartiesPage'),
+              },
+              {
+                path: paths.users(),
+                loader: requireArea('users'),
+                lazy: () => import('../features/users/routes/UsersPage'),
+              },
+              {
+                path: '/estimates',
+                loader: requireArea('estimates'),
+                children: [
+                  { index: true, loader: () => redirect(paths.estimates.machineRate()) },
+                  {
+                    path: paths.estimates.machineRate(),
+                    lazy: () => import('../features/estimates/routes/MachineRatePage'),
+                  },
+                  { path: paths.estimates.ownOrHire(), lazy: () => import('../features/estimates/routes/OwnOrHirePage') },
+                  {
+                    path: paths.estimates.jointOwnership(),
+                    lazy: () => import('../features/estimates/routes/JointOwnershipPage'),
+                  },
+                ],
+              },
+              { path: '*', element: <NotFound /> },
+            ],
+          },
+        ],
+      },
+    ],
+  },
+];
+
+export function createAppRouter() {
+  return createBrowserRouter(routes);
+}

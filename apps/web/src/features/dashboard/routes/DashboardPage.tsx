@@ -1,0 +1,47 @@
+import { SimpleGrid } from '@mantine/core';
+import { EmptyState } from '../../../components/EmptyState';
+import { PageHeader } from '../../../components/PageHeader';
+import { QueryError } from '../../../components/QueryError';
+import { useSessionUserOrThrow } from '../../../lib/auth';
+import { queryClient } from '../../../lib/queryClient';
+import { dashboardQueryOptions, useDashboard } from '../api/getDashboard';
+import { StatCard, StatCardSkeleton } from '../components/StatCard';
+
+export function loader() {
+  void queryClient.prefetchQuery(dashboardQueryOptions());
+  return null;
+}
+
+function firstName(name: string): string {
+  return name.trim().split(/\s+/)[0] ?? name;
+}
+
+export function Component() {
+  const user = useSessionUserOrThrow();
+  const dashboard = useDashboard();
+
+  return (
+    <>
+      <PageHeader title={`Good to see you, ${firstName(user.name)}`} description={user.operationName} />
+      {dashboard.isError ? (
+        <QueryError error={dashboard.error} onRetry={() => void dashboard.refetch()} />
+      ) : dashboard.isPending ? (
+        <SimpleGrid cols={{ base: 1, xs: 2, lg: 4 }} spacing="md">
+          {[0, 1, 2, 3].map((i) => (
+            <StatCardSkeleton key={i} />
+          ))}
+        </SimpleGrid>
+      ) : dashboard.data.cards.length === 0 ? (
+        <EmptyState title="Nothing to show yet">
+          Figures appear here as soon as there is work, machines or invoices for your role to see.
+        </EmptyState>
+      ) : (
+        <SimpleGrid cols={{ base: 1, xs: 2, lg: 4 }} spacing="md" data-testid="dashboard-cards">
+          {dashboard.data.cards.map((card) => (
+            <StatCard key={card.key} card={card} />
+          ))}
+        </SimpleGrid>
+      )}
+    </>
+  );
+}

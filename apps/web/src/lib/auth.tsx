@@ -1,0 +1,74 @@
+import { createContext, useCallback, useContext, useMemo, useSyncExternalStore, type ReactNode } from 'react';
+import type { SessionUser } from '@hitchbook/shared/schemas/auth';
+import { api, sessionStore, type Session } from './api';
+import { queryClient } from './queryClient';
+import { noteServerError, noteServerSuccess } from './serviceStatus';
+
+let restoring: Promise<void> | null = null;
+
+/**
+ * Asks the server once per page load whether the refresh cookie still holds a session. An
+ * outage is remembered for the notice and treated as signed out, so the sign-in page shows.
+ */
+export function restoreSessionOnce(): Promise<void> {
+  restoring ??= api.refreshSession().then(
+    () => noteServerSuccess(),
+    (error: unknown) => noteServerError(error),
+  );
+  return restoring;
+}
+
+export function currentSession(): Session | null {
+  return sessionStore.get();
+}
+
+interface AuthValue {
+  user: SessionUser | null;
+  signIn: (email: string, password: string) => Promise<SessionUser>;
+  acceptInvitation: (input: { token: string; name: string; password: string }) => Promise<SessionUser>;
+  signOut: () => Promise<void>;
+}
+
+const AuthContext = createContext<AuthValue | null>(null);
+
+export function AuthProvider({ children }: { children: ReactNode }) {
+  const session = useSyncExternalStore(sessionStore.subscribe, sessionStore.get);
+
+  const signIn = useCallback(async (email: string, password: string) => {
+    queryClient.clear();
+    return (await api.signIn('/api/auth/login', { email, password })).user;
+  }, []);
+
+  const acceptInvitation = useCallback(async (input: { token: string; name: string; password: string }) => {
+    queryClient.clear();
+    return (await api.signIn('/api/auth/invitations/accept', input)).user;
+  }, []);
+
+  const signOut = useCallback(async () => {
+    try {
+      await api.signOut();
+    } finally {
+      // Cached rows belong to the person leaving; the next sign-in must not see them.
+      queryClient.clear();
+    }
+  }, []);
+
+  const value = useMemo(
+    () => ({ user: session?.user ?? null, signIn, acceptInvitation, signOut }),
+    [session, signIn, acceptInvitation, signOut],
+  );
+  return <AuthContext.Provider value={value}>{children}</AuthContext.Provider>;
+}
+
+export function useAuth(): AuthValue {
+  const value = useContext(AuthContext);
+  if (!value) throw new Error('useAuth needs an AuthProvider above it.');
+  return value;
+}
+
+/** For screens that only render inside the signed-in layout. */
+export function useSessionUserOrThrow(): SessionUser {
+  const { user } = useAuth();
+  if (!user) throw new Error('This screen needs a signed-in user.');
+  return user;
+}
