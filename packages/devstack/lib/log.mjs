@@ -49,6 +49,11 @@ export async function step(title, fn) {
   }
 }
 
+/** For phases whose outcome is reported elsewhere (a test run that fails is not a script failure). */
+export function recordTiming(title, ms, ok) {
+  timings.push({ title, ms, ok });
+}
+
 export function printTimings() {
   if (timings.length === 0) return;
   console.log('\nPhase times:');

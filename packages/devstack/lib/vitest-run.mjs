@@ -1,0 +1,48 @@
+import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
+import { join } from 'node:path';
+import { describeExit, interruptible, sleep, startService } from './proc.mjs';
+import { dataDir, inRepo } from './paths.mjs';
+
+export const resultsDir = join(dataDir, 'test-results');
+
+/**
+ * Runs one workspace's vitest suite and reads its JSON report.
+ * Returns { passed, failed, total, note }. A run that exits non-zero without a failed test (a file that did not load,
+ * an unhandled error) or without a report counts as one failure, so nothing breaks silently.
+ */
+export async function runWorkspaceTests(workspace, env, { deadline }) {
+  mkdirSync(resultsDir, { recursive: true });
+  const report = join(resultsDir, `${workspace.replace(/\//g, '-')}.json`);
+  rmSync(report, { force: true });
+  const vitest = startService(
+    `vitest in ${workspace}`,
+    process.execPath,
+    [inRepo('node_modules', 'vitest', 'vitest.mjs'), 'run', '--reporter=default', '--reporter=json', `--outputFile=${report}`, '--passWithNoTests'],
+    { cwd: inRepo(workspace), env },
+  );
+  let timedOut = false;
+  try {
+    const timer = sleep(Math.max(0, deadline - Date.now())).then(() => 'timeout');
+    timedOut = (await interruptible(Promise.race([vitest.exited, timer]))) === 'timeout';
+  } finally {
+    await vitest.stop(5_000);
+  }
+  const exit = vitest.exitInfo;
+  if (timedOut) return { passed: 0, failed: 1, total: 0, note: 'stopped: the time budget for the whole run was used up' };
+  if (!existsSync(report)) return { passed: 0, failed: 1, total: 0, note: `vitest ${describeExit(exit)} without writing a report` };
+  let json;
+  try {
+    json = JSON.parse(readFileSync(report, 'utf8'));
+  } catch (error) {
+    return { passed: 0, failed: 1, total: 0, note: `the report ${report} is unreadable: ${error.message}` };
+  }
+  const passed = json.numPassedTests ?? 0;
+  let failed = json.numFailedTests ?? 0;
+  const total = json.numTotalTests ?? 0;
+  let note = total === 0 ? 'no test files' : '';
+  if (exit.code !== 0 && failed === 0) {
+    failed = 1;
+    note = `vitest ${describeExit(exit)} although no test failed (${json.numFailedTestSuites ?? 0} test file(s) failed to run)`;
+  }
+  return { passed, failed, total, note };
+}
