@@ -1,11 +1,24 @@
 import { fileURLToPath } from 'node:url';
 import bcrypt from 'bcrypt';
 import { sql } from 'drizzle-orm';
-import { createDb, type Database } from './client.js';
+import { createDb, type Database, type Transaction } from './client.js';
 import { DEMO_PASSWORD, demoCustomers, demoHouseholds, demoOperation, demoUsers } from './demo/people.js';
 import { memberships, operations, parties, users } from './schema/index.js';
 
 export const BCRYPT_COST = 12;
+
+/** What the foundation part of the seed created, for the parts that build on it. */
+export interface DemoContext {
+  operationId: string;
+  /** Party ids by the keys in demo/people.ts. */
+  partyIds: Map<string, string>;
+  /** User ids by e-mail. */
+  userIds: Map<string, string>;
+}
+
+/** Later parts of the demo (fleet, work, billing, square-up); each runs once, in order, in the seed's transaction. */
+export type DemoPart = (tx: Transaction, ctx: DemoContext) => Promise<void>;
+const demoParts: DemoPart[] = [];
 
 /** Seeds the invented demo outfit once; a second run finds the owner and leaves everything alone. */
 export async function seedDemo(db: Database): Promise<'seeded' | 'already-seeded'> {
@@ -34,12 +47,14 @@ export async function seedDemo(db: Database): Promise<'seeded' | 'already-seeded
       partyIds.set(c.key, row!.id);
     }
 
+    const userIds = new Map<string, string>();
     for (const u of demoUsers) {
       const passwordHash = await bcrypt.hash(DEMO_PASSWORD, BCRYPT_COST);
       const [user] = await tx
         .insert(users)
         .values({ email: u.email, name: u.name, passwordHash, passwordChangedAt: new Date() })
         .returning({ id: users.id });
+      userIds.set(u.email, user!.id);
       await tx.insert(memberships).values({
         operationId: operation.id,
         userId: user!.id,
@@ -47,6 +62,8 @@ export async function seedDemo(db: Database): Promise<'seeded' | 'already-seeded
         partyId: u.party ? partyIds.get(u.party)! : null,
       });
     }
+    const ctx: DemoContext = { operationId: operation.id, partyIds, userIds };
+    for (const part of demoParts) await part(tx, ctx);
     return 'seeded';
   });
 }
