@@ -4,7 +4,7 @@ import { runDatabaseScript } from '../lib/database.mjs';
 import { DevstackError } from '../lib/log.mjs';
 import { createDatabase } from '../lib/pg.mjs';
 import { usePostgres } from '../lib/pg-session.mjs';
-import { installSignalHandlers } from '../lib/proc.mjs';
+import { enterCleanup, installSignalHandlers } from '../lib/proc.mjs';
 
 const USAGE = 'Usage: node packages/devstack/bin/db.mjs migrate | seed';
 
@@ -20,6 +20,7 @@ async function main(args) {
     await createDatabase('hitchbook');
     await runDatabaseScript(task, postgres.url('hitchbook'));
   } finally {
+    enterCleanup();
     await postgres.release();
   }
 }

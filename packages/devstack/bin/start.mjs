@@ -13,7 +13,7 @@ import { envPort, requireFreePorts, waitForHttp } from '../lib/net.mjs';
 import { dataDir, inRepo } from '../lib/paths.mjs';
 import { createDatabase } from '../lib/pg.mjs';
 import { usePostgres } from '../lib/pg-session.mjs';
-import { describeExit, installSignalHandlers, startService, untilInterrupted } from '../lib/proc.mjs';
+import { describeExit, enterCleanup, installSignalHandlers, startService, untilInterrupted } from '../lib/proc.mjs';
 import { ensureNodeModules } from '../lib/npm-deps.mjs';
 import { localSecrets } from '../lib/secrets.mjs';
 
@@ -156,6 +156,7 @@ async function main() {
       exitCode = 1;
     }
   } finally {
+    enterCleanup();
     for (const cleanup of cleanups.reverse()) {
       try {
         await cleanup();

@@ -16,7 +16,7 @@ import { ensureNodeModules } from '../lib/npm-deps.mjs';
 import { inRepo } from '../lib/paths.mjs';
 import { createDatabase, dropDatabase } from '../lib/pg.mjs';
 import { usePostgres } from '../lib/pg-session.mjs';
-import { installSignalHandlers } from '../lib/proc.mjs';
+import { enterCleanup, installSignalHandlers } from '../lib/proc.mjs';
 import { resultsDir, runWorkspaceTests } from '../lib/vitest-run.mjs';
 
 /** In this order: pure code first, the browser tests against a running API last. */
@@ -97,7 +97,7 @@ async function main() {
       return session;
     });
     await step('Build', buildAll);
-    await step(`Test databases ${TEST_DATABASE} (migrated) and ${E2E_DATABASE} (migrated and seeded)`, () => freshDatabases(postgres));
+    await step(`Fresh databases ${TEST_DATABASE} and ${E2E_DATABASE}`, () => freshDatabases(postgres));
     await step('Chromium and poppler-utils', () =>
       ensureDebianPackages([
         { path: CHROMIUM, pkg: 'chromium', purpose: 'the browser for end-to-end tests' },
@@ -162,6 +162,7 @@ async function main() {
       console.error(`✗ ${error.message}`);
     }
   } finally {
+    enterCleanup();
     for (const cleanup of cleanups.reverse()) {
       try {
         await cleanup();

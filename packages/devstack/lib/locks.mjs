@@ -16,9 +16,9 @@ function readJson(path) {
  * Runs `fn` while holding a lock shared by every devstack script, so two of them never set up the same cluster at once.
  * A lock left by a process that died is taken over.
  */
-export async function withFileLock(name, fn, { timeoutMs = 180_000 } = {}) {
-  mkdirSync(runDir, { recursive: true });
-  const lockDir = join(runDir, `${name}.lock`);
+export async function withFileLock(name, fn, { timeoutMs = 180_000, dir = runDir } = {}) {
+  mkdirSync(dir, { recursive: true });
+  const lockDir = join(dir, `${name}.lock`);
   const ownerFile = join(lockDir, 'owner.json');
   const deadline = Date.now() + timeoutMs;
   for (;;) {
@@ -50,9 +50,9 @@ export async function withFileLock(name, fn, { timeoutMs = 180_000 } = {}) {
  * Claims `.data/run/<name>.json` for this process unless a live process holds it.
  * Returns { claimed: true, update, release } or { claimed: false, holder } with what the holder wrote.
  */
-export function claimSingleRun(name, details) {
-  mkdirSync(runDir, { recursive: true });
-  const file = join(runDir, `${name}.json`);
+export function claimSingleRun(name, details, dir = runDir) {
+  mkdirSync(dir, { recursive: true });
+  const file = join(dir, `${name}.json`);
   const temp = `${file}.${process.pid}.tmp`;
   const since = new Date().toISOString();
   // Written whole to a private file first, so a reader never sees a half-written claim.

@@ -56,6 +56,7 @@ export function recordTiming(title, ms, ok) {
 
 export function printTimings() {
   if (timings.length === 0) return;
+  const width = Math.max(...timings.map((t) => t.title.length));
   console.log('\nPhase times:');
-  for (const t of timings) console.log(`  ${t.ok ? '✓' : '✗'} ${t.title.padEnd(40)} ${formatSeconds(t.ms).padStart(8)}`);
+  for (const t of timings) console.log(`  ${t.ok ? '✓' : '✗'} ${t.title.padEnd(width)} ${formatSeconds(t.ms).padStart(8)}`);
 }

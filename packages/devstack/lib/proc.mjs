@@ -7,6 +7,7 @@ const liveGroups = new Set();
 /** The subset of liveGroups started by run(): short tasks that an interruption simply kills. */
 const taskGroups = new Set();
 let interruption = null;
+let cleaningUp = false;
 const interruptWaiters = new Set();
 
 export function installSignalHandlers() {
@@ -35,8 +36,14 @@ export function untilInterrupted() {
   return new Promise((resolve) => interruptWaiters.add(resolve));
 }
 
-/** Settles like `promise`, or rejects with Interrupted as soon as a stop signal arrives. */
+/** From here on the script only stops what it started, and a stop signal no longer cuts waits short. */
+export function enterCleanup() {
+  cleaningUp = true;
+}
+
+/** Settles like `promise`, or rejects with Interrupted as soon as a stop signal arrives (except during clean-up). */
 export function interruptible(promise) {
+  if (cleaningUp) return promise;
   return Promise.race([promise, untilInterrupted().then((signal) => Promise.reject(new Interrupted(signal)))]);
 }
 

@@ -7,7 +7,7 @@ export const resultsDir = join(dataDir, 'test-results');
 
 /**
  * Runs one workspace's vitest suite and reads its JSON report.
- * Returns { passed, failed, total, note }. A run that exits non-zero without a failed test (a file that did not load,
+ * Returns { passed, failed, note }. A run that exits non-zero without a failed test (a file that did not load,
  * an unhandled error) or without a report counts as one failure, so nothing breaks silently.
  */
 export async function runWorkspaceTests(workspace, env, { deadline }) {
@@ -27,22 +27,25 @@ export async function runWorkspaceTests(workspace, env, { deadline }) {
   } finally {
     await vitest.stop(5_000);
   }
-  const exit = vitest.exitInfo;
-  if (timedOut) return { passed: 0, failed: 1, total: 0, note: 'stopped: the time budget for the whole run was used up' };
-  if (!existsSync(report)) return { passed: 0, failed: 1, total: 0, note: `vitest ${describeExit(exit)} without writing a report` };
+  return summariseRun({ exit: vitest.exitInfo, timedOut, report: existsSync(report) ? readFileSync(report, 'utf8') : null });
+}
+
+/** Counts one finished vitest run from its exit and the text of its JSON report (null when none was written). */
+export function summariseRun({ exit, timedOut, report }) {
+  if (timedOut) return { passed: 0, failed: 1, note: 'stopped: the time budget for the whole run was used up' };
+  if (report === null) return { passed: 0, failed: 1, note: `vitest ${describeExit(exit)} without writing a report` };
   let json;
   try {
-    json = JSON.parse(readFileSync(report, 'utf8'));
+    json = JSON.parse(report);
   } catch (error) {
-    return { passed: 0, failed: 1, total: 0, note: `the report ${report} is unreadable: ${error.message}` };
+    return { passed: 0, failed: 1, note: `its JSON report is unreadable: ${error.message}` };
   }
   const passed = json.numPassedTests ?? 0;
   let failed = json.numFailedTests ?? 0;
-  const total = json.numTotalTests ?? 0;
-  let note = total === 0 ? 'no test files' : '';
+  let note = (json.numTotalTests ?? 0) === 0 ? 'no test files' : '';
   if (exit.code !== 0 && failed === 0) {
     failed = 1;
     note = `vitest ${describeExit(exit)} although no test failed (${json.numFailedTestSuites ?? 0} test file(s) failed to run)`;
   }
-  return { passed, failed, total, note };
+  return { passed, failed, note };
 }
