@@ -9,7 +9,7 @@ import { isApiError } from './api';
 type FormValues = Record<string, any>;
 
 /** Turns a path in the request body into the path of the form field that holds it. */
-export type IssuePathMap = (payloadPath: string) => string;
+export type IssuePathMap<Values = unknown> = (payloadPath: string, values: Values) => string;
 
 const samePath: IssuePathMap = (path) => path;
 
@@ -22,9 +22,9 @@ function hasPath(values: unknown, path: string): boolean {
   return true;
 }
 
-function remapErrors(errors: FormErrors, issuePath: IssuePathMap): FormErrors {
+function remapErrors<Values>(errors: FormErrors, issuePath: IssuePathMap<Values>, values: Values): FormErrors {
   const mapped: FormErrors = {};
-  for (const [path, message] of Object.entries(errors)) mapped[issuePath(path)] ??= message;
+  for (const [path, message] of Object.entries(errors)) mapped[issuePath(path, values)] ??= message;
   return mapped;
 }
 
@@ -35,14 +35,14 @@ function remapErrors(errors: FormErrors, issuePath: IssuePathMap): FormErrors {
 export function applyServerErrors<Values extends FormValues>(
   form: UseFormReturnType<Values>,
   error: unknown,
-  issuePath: IssuePathMap = samePath,
+  issuePath: IssuePathMap<Values> = samePath,
 ): string {
   if (!isApiError(error)) return 'Something went wrong. Try again.';
   const values = form.getValues();
   const fieldErrors: FormErrors = {};
   const unplaced: string[] = [];
   for (const issue of error.issues) {
-    const path = issue.path ? issuePath(issue.path) : '';
+    const path = issue.path ? issuePath(issue.path, values) : '';
     if (path && hasPath(values, path)) fieldErrors[path] ??= issue.message;
     else unplaced.push(issue.message);
   }
@@ -61,7 +61,7 @@ interface ServerFormOptions<Values extends FormValues, Payload, Result> {
   /** Rules only the form has, such as typing a new password twice. */
   check?: (values: Values) => FormErrors;
   /** Needed only when the request is shaped differently from the fields. */
-  issuePath?: IssuePathMap;
+  issuePath?: IssuePathMap<Values>;
 }
 
 /**
@@ -77,7 +77,7 @@ export function useServerForm<Values extends FormValues, Payload, Result>(
     mode: 'controlled',
     initialValues,
     validate: (values) => ({
-      ...remapErrors(resolver(toPayload(values) as Record<string, unknown>), issuePath),
+      ...remapErrors(resolver(toPayload(values) as Record<string, unknown>), issuePath, values),
       ...check?.(values),
     }),
     validateInputOnBlur: true,

@@ -1,0 +1,11 @@
+import { useMutation } from '@tanstack/react-query';
+import type { BreakEvenRequestInput } from '@hitchbook/shared/schemas/estimates';
+import { api } from '../../../lib/api';
+
+export function estimateBreakEven(input: BreakEvenRequestInput) {
+  return api.post<{ breakEvenAcres: string }>('/api/estimates/break-even', input);
+}
+
+export function useEstimateBreakEven() {
+  return useMutation({ mutationFn: estimateBreakEven });
+}

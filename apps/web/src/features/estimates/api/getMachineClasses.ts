@@ -1,0 +1,20 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { MachineClass } from '@hitchbook/shared/machine-classes';
+import { api } from '../../../lib/api';
+
+export function getMachineClasses(signal?: AbortSignal) {
+  return api.get<MachineClass[]>('/api/estimates/machine-classes', { signal });
+}
+
+export function machineClassesQueryOptions() {
+  return queryOptions({
+    queryKey: ['estimates', 'machine-classes'],
+    queryFn: ({ signal }) => getMachineClasses(signal),
+    // The published coefficients change with a new edition of the standard, not during a visit.
+    staleTime: Infinity,
+  });
+}
+
+export function useMachineClasses() {
+  return useQuery(machineClassesQueryOptions());
+}
