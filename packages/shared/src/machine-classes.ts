@@ -316,10 +316,6 @@ export const MACHINE_CLASSES: readonly MachineClass[] = [
 
 const BY_ID = new Map<string, MachineClass>(MACHINE_CLASSES.map((machineClass) => [machineClass.id, machineClass]));
 
-export function isMachineClassId(value: string): value is MachineClassId {
-  return BY_ID.has(value);
-}
-
 export function machineClassOrThrow(id: string): MachineClass {
   const machineClass = BY_ID.get(id);
   if (!machineClass) {
