@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { actualMachineRateOrThrow, compareWithEstimate, type MachineCostEntry } from './actual-rate.js';
-import { machineClassOrThrow, remainingValueCoefficientsOrThrow } from './machine-classes.js';
+import { a329Tractor } from './a329-tractor.fixture.js';
 import { estimateMachineCost } from './machine-cost.js';
 
 // Invented log for one tractor; the arithmetic is checked by hand in each test.
@@ -53,27 +53,9 @@ describe('actualMachineRateOrThrow', () => {
 
 describe('compareWithEstimate', () => {
   it('sets repairs, fuel with lube, and TIH beside the published-method estimate', () => {
-    const tractor = machineClassOrThrow('tractor-2wd');
     // Iowa State A3-29 (2015) tractor with fuel at $3.00 (trade reference §6a):
     // estimate repairs $6.30/h, fuel + lube $27.324/h, TIH $2.05625/h.
-    const estimate = estimateMachineCost({
-      repairFactors: { rf1: tractor.rf1, rf2: tractor.rf2 },
-      remainingValue: remainingValueCoefficientsOrThrow(tractor, 180),
-      listPrice: '150000',
-      purchasePrice: '130000',
-      yearsOwned: 15,
-      hoursPerYear: 400,
-      ageAtPurchase: 0,
-      hoursAtPurchase: 0,
-      interestRatePct: '8',
-      tihPct: '1',
-      salvageValue: '34500',
-      engine: { ptoHp: 180, fuelType: 'diesel', fuelPricePerGallon: '3.00' },
-      lubePct: '15',
-      laborWagePerHour: '0',
-      laborFactor: '1.1',
-      method: 'capital-recovery',
-    });
+    const estimate = estimateMachineCost(a329Tractor());
     const actual = actualMachineRateOrThrow({ year: 2025, hours: 400, entries: season() });
     const rows = compareWithEstimate(actual.perHour!, estimate.perHour);
     const byItem = Object.fromEntries(rows.map((row) => [row.item, row]));

@@ -324,7 +324,7 @@ export function machineClassOrThrow(id: string): MachineClass {
   return machineClass;
 }
 
-export function hasEngine(machineClass: MachineClass): boolean {
+export function hasEngine(machineClass: Pick<MachineClass, 'kind'>): boolean {
   return machineClass.kind !== 'implement';
 }
 

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { a329Tractor } from './a329-tractor.fixture.js';
 import { acresPerHour } from './field-capacity.js';
 import { machineClassOrThrow, remainingValueCoefficientsOrThrow } from './machine-classes.js';
 import {
@@ -11,7 +12,6 @@ import {
   remainingValueFraction,
   repairCostBetween,
   straightLineWithInterest,
-  type MachineCostInputs,
 } from './machine-cost.js';
 
 function near(actual: { toNumber(): number }, expected: number, tolerance: number): void {
@@ -19,31 +19,6 @@ function near(actual: { toNumber(): number }, expected: number, tolerance: numbe
 }
 
 const tractor2wd = machineClassOrThrow('tractor-2wd');
-
-// Iowa State AgDM A3-29 (2015) tractor: 180 max-PTO hp diesel, list $150,000,
-// purchase $130,000, 15 years, 8 %, 400 h/yr, salvage 23 % of list. Fuel
-// $3.00/gal and wage $15.00/h are the trade reference's test choices (§6a).
-function a329Tractor(overrides: Partial<MachineCostInputs> = {}): MachineCostInputs {
-  return {
-    repairFactors: { rf1: tractor2wd.rf1, rf2: tractor2wd.rf2 },
-    remainingValue: remainingValueCoefficientsOrThrow(tractor2wd, 180),
-    listPrice: '150000',
-    purchasePrice: '130000',
-    yearsOwned: 15,
-    hoursPerYear: 400,
-    ageAtPurchase: 0,
-    hoursAtPurchase: 0,
-    interestRatePct: '8',
-    tihPct: '1',
-    salvageValue: '34500',
-    engine: { ptoHp: 180, fuelType: 'diesel', fuelPricePerGallon: '3.00' },
-    lubePct: '15',
-    laborWagePerHour: '15.00',
-    laborFactor: '1.1',
-    method: 'capital-recovery',
-    ...overrides,
-  };
-}
 
 describe('capitalRecoveryFactor', () => {
   it.each([

@@ -160,7 +160,7 @@ export interface MachineCostEstimate {
   perHour: CostBreakdown;
 }
 
-export function mapBreakdown(breakdown: CostBreakdown, map: (value: Decimal) => Decimal): CostBreakdown {
+function mapBreakdown(breakdown: CostBreakdown, map: (value: Decimal) => Decimal): CostBreakdown {
   const mapped = {} as CostBreakdown;
   for (const key of COST_BREAKDOWN_KEYS) mapped[key] = map(breakdown[key]);
   return mapped;

@@ -6,7 +6,6 @@ import {
   METRES_PER_US_SURVEY_FOOT,
   ROAD_STRIP_DIVISOR,
   roadStripAcres,
-  squareMetresPer,
   type AreaUnit,
 } from './units.js';
 
@@ -33,12 +32,12 @@ describe('length definitions', () => {
 
 describe('area definitions', () => {
   it('gives the international acre as exactly 4,046.856 422 4 m² (NIST / 85 FR 62698, 2020)', () => {
-    expect(squareMetresPer('acre').toString()).toBe('4046.8564224');
+    expect(convertArea(1, 'acre', 'square-metre').toString()).toBe('4046.8564224');
   });
 
   it('gives the US survey acre as 4,046.872 609 874 m², SP 811 factor 4.046 873 E+03 (NIST SP 811 B.8)', () => {
-    expect(squareMetresPer('us-survey-acre').toFixed(9)).toBe('4046.872609874');
-    expect(squareMetresPer('us-survey-acre').toSignificantDigits(7).toString()).toBe('4046.873');
+    expect(convertArea(1, 'us-survey-acre', 'square-metre').toFixed(9)).toBe('4046.872609874');
+    expect(convertArea(1, 'us-survey-acre', 'square-metre').toSignificantDigits(7).toString()).toBe('4046.873');
   });
 
   it('puts 43,560 ft² in an acre and 0.404 685 642 24 ha (NIST SP 811 B.8; trade reference §8 [C-calc])', () => {

@@ -28,14 +28,6 @@ const SQUARE_METRES_PER: Record<AreaUnit, Decimal> = {
   hectare: SQUARE_METRES_PER_HECTARE,
 };
 
-export function metresPer(unit: LengthUnit): Decimal {
-  return METRES_PER[unit];
-}
-
-export function squareMetresPer(unit: AreaUnit): Decimal {
-  return SQUARE_METRES_PER[unit];
-}
-
 export function convertLength(value: DecimalInput, from: LengthUnit, to: LengthUnit): Decimal {
   return parseDecimalOrThrow(value, 'length').times(METRES_PER[from]).div(METRES_PER[to]);
 }

@@ -54,15 +54,10 @@ export const machineCostRequestSchema = z
     }
     const machineClass = machineClassOrThrow(request.machineClass);
     if (hasEngine(machineClass)) {
-      if (request.ptoHp === undefined) {
-        ctx.addIssue({ code: 'custom', path: ['ptoHp'], message: `Required for a ${machineClass.label.toLowerCase()}` });
-      }
-      if (request.fuelPricePerGallon === undefined) {
-        ctx.addIssue({
-          code: 'custom',
-          path: ['fuelPricePerGallon'],
-          message: `Required for a ${machineClass.label.toLowerCase()}`,
-        });
+      for (const field of ['ptoHp', 'fuelPricePerGallon'] as const) {
+        if (request[field] === undefined) {
+          ctx.addIssue({ code: 'custom', path: [field], message: `Required for a machine with an engine (${machineClass.label})` });
+        }
       }
     } else if (request.ptoHp !== undefined) {
       ctx.addIssue({
