@@ -1,6 +1,7 @@
 import type { Decimal } from 'decimal.js';
 import { z } from 'zod';
 import { uuidSchema } from './common.js';
+import type { WorkEntryWarning } from '../work-entry-checks.js';
 import { decimalInput, type DecimalRules } from './decimal-input.js';
 
 export const WORK_ENTRY_STATES = ['draft', 'submitted', 'approved', 'invoiced', 'squared'] as const;
@@ -232,10 +233,7 @@ export const FUEL_TICKET_IMPORT_COLUMNS = [
 
 // ---- Response shapes (what the API sends; the web types its queries with these) ----
 
-export interface WorkEntryWarning {
-  code: 'above-field-capacity' | 'clock-overlap' | 'meter-overlap' | 'meter-gap' | 'long-entry';
-  message: string;
-}
+export type { WorkEntryWarning };
 
 export interface WorkEntryDto {
   id: string;
