@@ -4,6 +4,7 @@ import type { AppConfig } from './core/config.js';
 import { DB, type DbHandle } from './core/database.js';
 import { AuthModule } from './modules/auth/auth.module.js';
 import { DashboardModule } from './modules/dashboard/dashboard.module.js';
+import { EstimatesModule } from './modules/estimates/estimates.module.js';
 import { HealthModule } from './modules/health/health.module.js';
 import { PartiesModule } from './modules/parties/parties.module.js';
 import { UsersModule } from './modules/users/users.module.js';
@@ -15,7 +16,7 @@ export class AppModule implements OnApplicationShutdown {
   static forRoot(config: AppConfig): DynamicModule {
     return {
       module: AppModule,
-      imports: [CoreModule.forRoot(config), AuthModule, HealthModule, PartiesModule, UsersModule, DashboardModule],
+      imports: [CoreModule.forRoot(config), AuthModule, HealthModule, PartiesModule, UsersModule, DashboardModule, EstimatesModule],
     };
   }
 

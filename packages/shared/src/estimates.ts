@@ -25,11 +25,12 @@ import { squareUpOrThrow } from './settlement.js';
 // its schema in ./schemas/estimates and returns the response body exactly as
 // the API contract writes it, decimals as strings at the documented places.
 
-export type MachineClassResponse = Pick<MachineClass, 'id' | 'label' | 'kind' | 'rf1' | 'rf2' | 'lifeHours' | 'remainingValue'>;
+// The contract's fields plus the class's typical speed and field efficiency, which the estimate screens offer as defaults.
+export type MachineClassResponse = Pick<MachineClass, 'id' | 'label' | 'kind' | 'rf1' | 'rf2' | 'lifeHours' | 'remainingValue' | 'fieldOperation'>;
 
 // GET /api/estimates/machine-classes
 export function listMachineClasses(): MachineClassResponse[] {
-  return MACHINE_CLASSES.map(({ id, label, kind, rf1, rf2, lifeHours, remainingValue }) => ({
+  return MACHINE_CLASSES.map(({ id, label, kind, rf1, rf2, lifeHours, remainingValue, fieldOperation }) => ({
     id,
     label,
     kind,
@@ -37,6 +38,7 @@ export function listMachineClasses(): MachineClassResponse[] {
     rf2,
     lifeHours,
     remainingValue: Array.isArray(remainingValue) ? remainingValue.map((row) => ({ ...row })) : { ...remainingValue },
+    fieldOperation,
   }));
 }
 

@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { type ArgumentsHost, Catch, type ExceptionFilter, HttpException, Logger } from '@nestjs/common';
 import type { Request, Response } from 'express';
+import { ComputationError } from '@hitchbook/shared/errors';
 import { AppError, statusOf, type FieldIssue } from './app-error.js';
 
 /** The request id travels in the X-Request-Id header only, so two refusals of the same kind have identical bodies. */
@@ -59,6 +60,10 @@ export class ErrorFilter implements ExceptionFilter {
       const body: ErrorBody = { message: exception.message };
       if (exception.issues.length > 0) body.issues = exception.issues;
       return { status: statusOf(exception.code), body, retryAfter: exception.retryAfterSeconds };
+    }
+    // The engine refuses inputs its schemas let through only in combinations; that is still the caller's input.
+    if (exception instanceof ComputationError) {
+      return { status: 400, body: { message: exception.message } };
     }
     if (exception instanceof HttpException) {
       const status = exception.getStatus();
