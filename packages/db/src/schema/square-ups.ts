@@ -17,6 +17,11 @@ export const squareUps = pgTable(
     periodFrom: date({ mode: 'string' }).notNull(),
     periodTo: date({ mode: 'string' }).notNull(),
     status: text({ enum: ['open', 'closed'] }).notNull().default('open'),
+    /**
+     * 'ownership': fixed costs by share, operating costs by use. 'use': every cost by use, for owners who
+     * agreed to settle a jointly owned machine by use because their use differs from their shares.
+     */
+    fixedCostsBy: text({ enum: ['ownership', 'use'] }).notNull().default('ownership'),
     closedAt: timestamp({ withTimezone: true }),
     closedBy: uuid().references(() => users.id, { onDelete: 'set null' }),
     /** The statement as computed when the period was closed. */
@@ -29,6 +34,7 @@ export const squareUps = pgTable(
     index('square_ups_operation_period_idx').on(t.operationId, t.periodFrom),
     check('square_ups_period_check', sql`${t.periodTo} >= ${t.periodFrom}`),
     check('square_ups_status_check', sql`${t.status} in ('open', 'closed')`),
+    check('square_ups_fixed_costs_by_check', sql`${t.fixedCostsBy} in ('ownership', 'use')`),
   ],
 );
 
@@ -38,6 +44,8 @@ export const squareUpTransfers = pgTable(
     id: id(),
     operationId: uuid().notNull(),
     squareUpId: uuid().notNull(),
+    /** Order of the transfer in the frozen statement. */
+    position: integer().notNull(),
     fromPartyId: uuid().notNull(),
     toPartyId: uuid().notNull(),
     amount: numeric({ precision: 14, scale: 2 }).notNull(),
@@ -51,6 +59,7 @@ export const squareUpTransfers = pgTable(
     foreignKey({ name: 'square_up_transfers_square_up_fk', columns: [t.operationId, t.squareUpId], foreignColumns: [squareUps.operationId, squareUps.id] }).onDelete('cascade'),
     foreignKey({ name: 'square_up_transfers_from_fk', columns: [t.operationId, t.fromPartyId], foreignColumns: [parties.operationId, parties.id] }).onDelete('restrict'),
     foreignKey({ name: 'square_up_transfers_to_fk', columns: [t.operationId, t.toPartyId], foreignColumns: [parties.operationId, parties.id] }).onDelete('restrict'),
+    unique('square_up_transfers_square_up_position_key').on(t.squareUpId, t.position),
     check('square_up_transfers_amount_check', sql`${t.amount} > 0`),
     check('square_up_transfers_parties_check', sql`${t.fromPartyId} <> ${t.toPartyId}`),
   ],
