@@ -13,7 +13,7 @@ import { envPort, requireFreePorts, waitForHttp } from '../lib/net.mjs';
 import { dataDir, inRepo } from '../lib/paths.mjs';
 import { createDatabase } from '../lib/pg.mjs';
 import { usePostgres } from '../lib/pg-session.mjs';
-import { describeExit, enterCleanup, installSignalHandlers, startService, untilInterrupted } from '../lib/proc.mjs';
+import { describeExit, enterCleanup, installSignalHandlers, startService, stopLeftover, untilInterrupted } from '../lib/proc.mjs';
 import { ensureNodeModules } from '../lib/npm-deps.mjs';
 import { localSecrets } from '../lib/secrets.mjs';
 
@@ -50,6 +50,13 @@ function readPorts(dev) {
   return { port, apiPort, wanted };
 }
 
+/** An earlier run killed outright (kill -9, a closed laptop lid) leaves its services holding the ports. */
+async function stopLeftoversOf(previous) {
+  for (const record of previous?.services ?? []) {
+    if (await stopLeftover(record)) info(`Stopped the ${record.name} (pid ${record.pid}) left by an earlier run that was killed`);
+  }
+}
+
 /** Resolves with a reason when one of the services exits on its own. */
 function firstUnexpectedExit(services) {
   return Promise.race(services.map((s) => s.exited.then((exit) => `${s.name} ${describeExit(exit)}`)));
@@ -70,6 +77,7 @@ async function main() {
   const cleanups = [];
   let exitCode = 0;
   try {
+    await stopLeftoversOf(claim.previous);
     const { port, apiPort, wanted } = readPorts(dev);
     await requireFreePorts(wanted);
     await step('npm packages', ensureNodeModules);
@@ -106,9 +114,11 @@ async function main() {
     });
 
     const watched = [...fakes.services];
+    const recorded = [...fakes.services];
     if (dev) {
       const api = await step(`API on port ${apiPort} (rebuilt on change)`, () => startWatchedApi(env));
       cleanups.push(() => api.stop());
+      recorded.push(...api.services);
       const vite = await step(`Vite dev server on port ${port}`, async () => {
         const service = startService(
           'Vite dev server',
@@ -121,13 +131,15 @@ async function main() {
         return service;
       });
       watched.push(vite);
+      recorded.push(vite);
     } else {
       const api = await step(`API and web app on port ${port}`, () => startApi(env));
       cleanups.push(() => api.stop());
       watched.push(api);
+      recorded.push(api);
     }
 
-    claim.update({ appUrl });
+    claim.update({ appUrl, services: recorded.map((s) => s.record) });
     printTimings();
     info(
       [

@@ -16,7 +16,7 @@ export async function startWatchedApi(env) {
   let api = await startApi(env);
   if (!existsSync(inRepo(API_TSCONFIG))) {
     warn(`${API_TSCONFIG} is missing, so the API is not rebuilt on change`);
-    return { stop: () => api.stop() };
+    return { services: [api], stop: () => api.stop() };
   }
   const compiler = startService(
     'API compiler',
@@ -54,6 +54,8 @@ export async function startWatchedApi(env) {
     if (!stopping) warn(`API compiler ${describeExit(exit)}; the API is no longer rebuilt on change`);
   });
   return {
+    /** Started now; an API restarted later is a new process. */
+    services: [api, compiler],
     async stop() {
       stopping = true;
       await compiler.stop();

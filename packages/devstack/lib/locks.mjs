@@ -48,7 +48,8 @@ export async function withFileLock(name, fn, { timeoutMs = 180_000, dir = runDir
 
 /**
  * Claims `.data/run/<name>.json` for this process unless a live process holds it.
- * Returns { claimed: true, update, release } or { claimed: false, holder } with what the holder wrote.
+ * Returns { claimed: true, previous, update, release }, where `previous` is what a dead holder left (or null),
+ * or { claimed: false, holder } with what the live holder wrote.
  */
 export function claimSingleRun(name, details, dir = runDir) {
   mkdirSync(dir, { recursive: true });
@@ -57,6 +58,7 @@ export function claimSingleRun(name, details, dir = runDir) {
   const since = new Date().toISOString();
   // Written whole to a private file first, so a reader never sees a half-written claim.
   const writeTemp = (content) => writeFileSync(temp, JSON.stringify({ pid: process.pid, since, ...content }, null, 2));
+  let previous = null;
   for (;;) {
     writeTemp(details);
     try {
@@ -65,6 +67,7 @@ export function claimSingleRun(name, details, dir = runDir) {
       let current = details;
       return {
         claimed: true,
+        previous,
         update(extra) {
           current = { ...current, ...extra };
           writeTemp(current);
@@ -79,6 +82,7 @@ export function claimSingleRun(name, details, dir = runDir) {
       if (error.code !== 'EEXIST') throw error;
       const holder = readJson(file);
       if (holder && processIsAlive(holder.pid)) return { claimed: false, holder };
+      previous = holder;
       rmSync(file, { force: true });
     }
   }

@@ -120,6 +120,10 @@ export function startService(name, cmd, args, { cwd, env = process.env, stdout =
     name,
     child,
     exited,
+    /** What stopLeftover needs to find this service again if the script that started it is killed. */
+    get record() {
+      return { name, pid: child.pid, commandLine: processCommandLine(child.pid).join(' ') };
+    },
     get exitInfo() {
       return exitInfo;
     },
@@ -159,6 +163,18 @@ export function processCommandLine(pid) {
   } catch {
     return [];
   }
+}
+
+/**
+ * Stops a process group left behind by a script that was killed outright, if its leader still runs the same command
+ * (a reused pid belongs to someone else and is left alone). Returns true when something was stopped.
+ */
+export async function stopLeftover({ pid, commandLine }) {
+  if (!processIsAlive(pid) || processCommandLine(pid).join(' ') !== commandLine) return false;
+  killGroup(pid, 'SIGTERM');
+  for (let waited = 0; waited < 5_000 && processIsAlive(pid); waited += 100) await sleep(100);
+  killGroup(pid, 'SIGKILL');
+  return true;
 }
 
 export const sleep = (ms) => new Promise((resolve) => setTimeout(resolve, ms));
