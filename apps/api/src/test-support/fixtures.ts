@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import bcrypt from 'bcrypt';
 import { memberships, operations, parties, users, type Database } from '@hitchbook/db';
 import type { Role } from '@hitchbook/shared/roles';
+import { seedDefaultWorkTypes } from '../modules/work-types/default-work-types.js';
 import type { TestApp } from './test-app.js';
 
 export const FIXTURE_PASSWORD = 'correct-horse-battery';
@@ -21,6 +22,7 @@ export async function createOperation(db: Database, label = 'Test outfit'): Prom
   const tag = randomUUID().slice(0, 8);
   const [op] = await db.insert(operations).values({ name: `${label} ${tag}` }).returning({ id: operations.id });
   const operationId = op!.id;
+  await seedDefaultWorkTypes(db, operationId);
   const partyRows = await db
     .insert(parties)
     .values([
