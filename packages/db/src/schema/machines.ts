@@ -140,6 +140,8 @@ export const costEntries = pgTable(
     unique('cost_entries_operation_import_key').on(t.operationId, t.importKey),
     index('cost_entries_operation_machine_date_idx').on(t.operationId, t.machineId, t.incurredOn),
     index('cost_entries_operation_date_idx').on(t.operationId, t.incurredOn),
+    // Improvements are spread over years of life, so a year's figures read earlier years' improvements; this keeps that read to improvements alone.
+    index('cost_entries_operation_improvement_date_idx').on(t.operationId, t.incurredOn).where(sql`${t.category} = 'improvement'`),
     check('cost_entries_amount_check', sql`${t.amount} >= 0`),
     check('cost_entries_category_check', sql`${t.category} in ('fuel', 'repair', 'parts', 'tires', 'insurance', 'taxes', 'housing', 'interest', 'improvement')`),
     check('cost_entries_improvement_life_check', sql`${t.category} <> 'improvement' or coalesce(${t.improvementLifeYears}, 0) >= 1`),

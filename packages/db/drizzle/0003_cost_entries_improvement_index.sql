@@ -1,0 +1,1 @@
+CREATE INDEX "cost_entries_operation_improvement_date_idx" ON "cost_entries" USING btree ("operation_id","incurred_on") WHERE "cost_entries"."category" = 'improvement';
