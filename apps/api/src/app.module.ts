@@ -2,6 +2,7 @@ import { type DynamicModule, Inject, Module, type OnApplicationShutdown } from '
 import { CoreModule } from './core/core.module.js';
 import type { AppConfig } from './core/config.js';
 import { DB, type DbHandle } from './core/database.js';
+import { JobsModule } from './core/jobs.module.js';
 import { AuthModule } from './modules/auth/auth.module.js';
 import { DashboardModule } from './modules/dashboard/dashboard.module.js';
 import { EstimatesModule } from './modules/estimates/estimates.module.js';
@@ -16,7 +17,7 @@ export class AppModule implements OnApplicationShutdown {
   static forRoot(config: AppConfig): DynamicModule {
     return {
       module: AppModule,
-      imports: [CoreModule.forRoot(config), AuthModule, HealthModule, PartiesModule, UsersModule, DashboardModule, EstimatesModule],
+      imports: [CoreModule.forRoot(config), JobsModule, AuthModule, HealthModule, PartiesModule, UsersModule, DashboardModule, EstimatesModule],
     };
   }
 

@@ -18,6 +18,27 @@ export interface AppConfig {
   webDist: string | null;
   uploadDir: string;
   production: boolean;
+  /** Card payments; null when STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET are not both set. */
+  stripe: StripeConfig | null;
+  jobs: JobsConfig;
+}
+
+export interface StripeConfig {
+  secretKey: string;
+  webhookSecret: string;
+  /** Another Stripe API host (the local fake); null talks to Stripe itself. */
+  host: string | null;
+  port: number | null;
+  protocol: 'http' | 'https';
+}
+
+export interface JobsConfig {
+  /** PostgreSQL schema of the job queue; instances that share one share their work. */
+  schema: string;
+  pollingIntervalSeconds: number;
+  /** First retry of a failed e-mail after about this long, doubling on each further failure. */
+  mailRetryDelaySeconds: number;
+  mailRetryLimit: number;
 }
 
 export const APP_CONFIG = Symbol('APP_CONFIG');
@@ -47,5 +68,25 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     webDist: env.WEB_DIST ? resolve(env.WEB_DIST) : null,
     uploadDir: resolve(env.UPLOAD_DIR ?? '.data/uploads'),
     production: env.NODE_ENV === 'production',
+    stripe: loadStripeConfig(env),
+    jobs: {
+      schema: env.JOB_SCHEMA ?? 'pgboss',
+      pollingIntervalSeconds: Number(env.JOB_POLL_SECONDS ?? 2),
+      mailRetryDelaySeconds: Number(env.MAIL_RETRY_DELAY_SECONDS ?? 20),
+      mailRetryLimit: Number(env.MAIL_RETRY_LIMIT ?? 8),
+    },
   };
+}
+
+const LOOPBACK_HOSTS = new Set(['127.0.0.1', 'localhost', '::1']);
+
+/** Plain http only ever goes to a loopback host (the local fake); anything else is https. */
+function loadStripeConfig(env: NodeJS.ProcessEnv): StripeConfig | null {
+  const secretKey = env.STRIPE_SECRET_KEY;
+  const webhookSecret = env.STRIPE_WEBHOOK_SECRET;
+  if (!secretKey || !webhookSecret) return null;
+  const host = env.STRIPE_API_HOST || null;
+  const port = env.STRIPE_API_PORT ? Number(env.STRIPE_API_PORT) : null;
+  if (port !== null && !(Number.isInteger(port) && port > 0 && port < 65536)) throw new Error('STRIPE_API_PORT must be a TCP port number.');
+  return { secretKey, webhookSecret, host, port, protocol: host && LOOPBACK_HOSTS.has(host) ? 'http' : 'https' };
 }

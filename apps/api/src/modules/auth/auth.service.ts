@@ -7,7 +7,7 @@ import { AppError, invalid, notFound } from '../../common/errors/app-error.js';
 import { AuditService } from '../../core/audit.service.js';
 import { APP_CONFIG, type AppConfig } from '../../core/config.js';
 import { DB, type DbHandle } from '../../core/database.js';
-import { MailService } from '../../core/mail.service.js';
+import { MailQueue } from '../../core/jobs.mail.js';
 import { RateLimitService } from '../../core/rate-limit.service.js';
 import { hashPassword, verifyPassword } from './passwords.js';
 import { SessionService, type IssuedSession } from './session.service.js';
@@ -34,7 +34,7 @@ export class AuthService {
     @Inject(SessionService) private readonly sessions: SessionService,
     @Inject(RateLimitService) private readonly limits: RateLimitService,
     @Inject(AuditService) private readonly audit: AuditService,
-    @Inject(MailService) private readonly mail: MailService,
+    @Inject(MailQueue) private readonly mail: MailQueue,
   ) {}
 
   async login(email: string, password: string, ip: string): Promise<SignedIn> {
@@ -112,7 +112,7 @@ export class AuthService {
     });
     const link = `${this.config.appUrl}/reset-password?token=${encodeURIComponent(token)}`;
     // Not awaited: the answer must not take longer for addresses that have an account.
-    void this.mail.send({
+    this.mail.enqueueInBackground({
       to: user.email,
       subject: 'Reset your Hitchbook password',
       text: `Hello ${user.name},\n\nSomeone asked to reset the password of your Hitchbook sign-in. If it was you, open this link within an hour:\n\n${link}\n\nIf it was not you, ignore this e-mail; your password stays as it is.\n`,

@@ -8,7 +8,7 @@ import { conflict, invalid, notFound } from '../../common/errors/app-error.js';
 import { AuditService } from '../../core/audit.service.js';
 import { APP_CONFIG, type AppConfig } from '../../core/config.js';
 import { DB, type DbHandle } from '../../core/database.js';
-import { MailService } from '../../core/mail.service.js';
+import { MailQueue } from '../../core/jobs.mail.js';
 import { SessionService } from '../auth/session.service.js';
 import { digestToken, newOpaqueToken } from '../auth/tokens.js';
 
@@ -31,7 +31,7 @@ export class UsersService {
     @Inject(DB) private readonly dbh: DbHandle,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
     @Inject(AuditService) private readonly audit: AuditService,
-    @Inject(MailService) private readonly mail: MailService,
+    @Inject(MailQueue) private readonly mail: MailQueue,
     @Inject(SessionService) private readonly sessions: SessionService,
   ) {}
 
@@ -90,15 +90,19 @@ export class UsersService {
         status: 'invited',
       };
       await this.audit.record(this.audit.byActor(actor, 'membership.invited', 'membership', membership!.id, { after: dto }), tx);
+      // Queued in the same transaction: the invitation mail goes out exactly when the invitation exists.
+      const link = `${this.config.appUrl}/accept-invite?token=${encodeURIComponent(token)}`;
+      await this.mail.enqueue(
+        {
+          to: input.email,
+          subject: `${actor.name} invited you to ${actor.operationName} on Hitchbook`,
+          text:
+            `Hello ${input.name},\n\n${actor.name} invited you to join ${actor.operationName} on Hitchbook as ${input.role}.\n\n` +
+            `Open this link within 7 days to choose your password and sign in:\n\n${link}\n`,
+        },
+        tx,
+      );
       return dto;
-    });
-    const link = `${this.config.appUrl}/accept-invite?token=${encodeURIComponent(token)}`;
-    await this.mail.send({
-      to: input.email,
-      subject: `${actor.name} invited you to ${actor.operationName} on Hitchbook`,
-      text:
-        `Hello ${input.name},\n\n${actor.name} invited you to join ${actor.operationName} on Hitchbook as ${input.role}.\n\n` +
-        `Open this link within 7 days to choose your password and sign in:\n\n${link}\n`,
     });
     return member;
   }
