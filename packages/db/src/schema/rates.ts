@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { check, date, foreignKey, index, integer, numeric, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { check, date, foreignKey, index, integer, numeric, pgTable, text, timestamp, unique, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import { id, timestamps } from './columns.js';
 import { machines } from './machines.js';
 import { operations } from './operations.js';
@@ -39,6 +39,10 @@ export const rateSheets = pgTable(
     unique('rate_sheets_operation_id_id_key').on(t.operationId, t.id),
     foreignKey({ name: 'rate_sheets_party_fk', columns: [t.operationId, t.partyId], foreignColumns: [parties.operationId, parties.id] }).onDelete('restrict'),
     index('rate_sheets_operation_relationship_from_idx').on(t.operationId, t.relationship, t.effectiveFrom),
+    // Two live sheets starting the same day for the same relationship (or the same party) would leave the price ambiguous.
+    uniqueIndex('rate_sheets_in_force_key')
+      .on(t.operationId, t.relationship, sql`coalesce(${t.partyId}, '00000000-0000-0000-0000-000000000000'::uuid)`, t.effectiveFrom)
+      .where(sql`${t.archivedAt} is null`),
     check('rate_sheets_relationship_check', sql`${t.relationship} in ('family', 'neighbour', 'agency')`),
     check('rate_sheets_money_check', sql`${t.minimumCharge} >= 0 and ${t.travelFlat} >= 0 and ${t.travelPerMile} >= 0 and ${t.operatorWage} >= 0`),
   ],

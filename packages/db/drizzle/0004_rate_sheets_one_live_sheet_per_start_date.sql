@@ -1,0 +1,1 @@
+CREATE UNIQUE INDEX "rate_sheets_in_force_key" ON "rate_sheets" USING btree ("operation_id","relationship",coalesce("party_id", '00000000-0000-0000-0000-000000000000'::uuid),"effective_from") WHERE "rate_sheets"."archived_at" is null;
