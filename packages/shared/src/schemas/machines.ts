@@ -448,3 +448,25 @@ export interface MachineSummaryDto {
   actualRate?: { perYear: CategoryAmountsDto; perHour: CategoryAmountsDto | null; perAcre: CategoryAmountsDto | null };
   notice: string;
 }
+
+// ---------------------------------------------------------------- uploads (receipts, photos, boundaries)
+
+export const UPLOAD_PURPOSES = ['receipt', 'machine-photo', 'entry-photo', 'field-boundary'] as const;
+export type UploadPurpose = (typeof UPLOAD_PURPOSES)[number];
+
+/** At most 10 MB per file (a phone photo of a receipt is a few MB). */
+export const MAX_UPLOAD_BYTES = 10 * 1024 * 1024;
+
+/** The form fields beside `file` in POST /api/uploads (multipart/form-data). */
+export const uploadFieldsSchema = z.strictObject({ purpose: oneOf(UPLOAD_PURPOSES) });
+
+export interface UploadDto {
+  id: string;
+  purpose: UploadPurpose;
+  originalName: string;
+  /** What the content was found to be, not what the client claimed. */
+  contentType: string;
+  sizeBytes: number;
+  sha256: string;
+  createdAt: string;
+}
