@@ -5,11 +5,13 @@ import { envPort } from './net.mjs';
 import { inRepo, repoRoot } from './paths.mjs';
 import { describeExit, interruptible, sleep, startService } from './proc.mjs';
 
+/** The one key the Stripe fake accepts; the fake makes a fresh webhook signing secret on every start. */
+const STRIPE_TEST_KEY = 'sk_test_hitchbook_local';
+
 /**
  * Local stand-ins for outside services, started by `npm start` and `npm test` after the build.
  * Each one is a built CLI that prints ready lines; `readyFrom` turns those lines into what `env` hands to the API and tests.
  * `fixedPorts` is true for `npm start` (ports a person can bookmark) and false for `npm test` (free ports).
- * A Stripe fake goes here as the next entry.
  */
 export const localFakes = [
   {
@@ -34,6 +36,33 @@ export const localFakes = [
       MAIL_API_URL: webUrl,
     }),
     describe: ({ webUrl, smtpHost, smtpPort }) => `Mail inbox:  ${webUrl}/   (SMTP ${smtpHost}:${smtpPort})`,
+  },
+  {
+    name: 'Stripe fake',
+    tag: 'stripe',
+    entry: 'packages/stripe-fake/dist/cli.js',
+    // npm start knows where the API answers (PORT; under npm run dev, Vite there passes /api on to the API).
+    // npm test starts its API later on a free port, so its tests point the fake there with PUT /_fake/webhook-endpoint.
+    args: (fixedPorts) => [
+      '--host', '127.0.0.1',
+      '--port', String(fixedPorts ? envPort('STRIPE_FAKE_PORT', 12111) : 0),
+      '--secret-key', STRIPE_TEST_KEY,
+      ...(fixedPorts ? ['--webhook-url', `http://127.0.0.1:${envPort('PORT', 3000)}/api/payments/stripe-webhook`] : []),
+    ],
+    readyFrom(lines) {
+      const listening = lines.map((l) => /^Stripe fake listening on ([^\s:]+):(\d+)$/.exec(l)).find(Boolean);
+      const base = lines.map((l) => /^Stripe fake at (http:\/\/\S+)$/.exec(l)).find(Boolean);
+      const secret = lines.map((l) => /^Webhook signing secret (whsec_\S+)$/.exec(l)).find(Boolean);
+      return listening && base && secret ? { host: listening[1], port: listening[2], url: base[1], webhookSecret: secret[1] } : null;
+    },
+    env: ({ host, port, url, webhookSecret }) => ({
+      STRIPE_API_HOST: host,
+      STRIPE_API_PORT: port,
+      STRIPE_SECRET_KEY: STRIPE_TEST_KEY,
+      STRIPE_WEBHOOK_SECRET: webhookSecret,
+      STRIPE_FAKE_URL: url,
+    }),
+    describe: ({ url }) => `Stripe fake: ${url}/_fake   (pay with test card 4242 4242 4242 4242)`,
   },
 ];
 
