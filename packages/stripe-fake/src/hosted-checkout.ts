@@ -42,15 +42,12 @@ async function pay(fake: Fake, session: CheckoutSessionRecord, req: IncomingMess
   const form = new URLSearchParams(await readBody(req, FORM_LIMIT));
   const email = form.get('email')?.trim() || null;
   const typed = checkTypedCard({ number: form.get('card_number') ?? '', expiry: parseExpiry(form.get('expiry') ?? ''), cvc: form.get('cvc') ?? '' });
-  const failure = isCardFailure(typed)
-    ? typed
-    : !email && !session.customerEmail
-      ? { message: 'Enter your email address.' }
-      : payCheckoutSession(fake, session, { card: typed.card, expiry: typed.expiry, email }, FROM_PAYER);
-  if (failure) {
-    sendHtml(res, 402, renderCheckoutPage(session, { error: failure.message, email: email ?? undefined }), openPagePolicy(session));
-    return;
-  }
+  const showError = (message: string) =>
+    sendHtml(res, 402, renderCheckoutPage(session, { error: message, email: email ?? undefined }), openPagePolicy(session));
+  if (isCardFailure(typed)) return showError(typed.message);
+  if (!email && !session.customerEmail) return showError('Enter your email address.');
+  const declined = payCheckoutSession(fake, session, { card: typed.card, expiry: typed.expiry, email }, FROM_PAYER);
+  if (declined) return showError(declined.message);
   // 303 makes the browser fetch the success page with GET, so reloading it does not post the card again.
   res.writeHead(303, { location: successRedirect(session), 'cache-control': 'no-store' });
   res.end();
