@@ -9,6 +9,7 @@ import { EstimatesModule } from './modules/estimates/estimates.module.js';
 import { HealthModule } from './modules/health/health.module.js';
 import { PartiesModule } from './modules/parties/parties.module.js';
 import { UsersModule } from './modules/users/users.module.js';
+import { RateSheetsModule } from './modules/rate-sheets/rate-sheets.module.js';
 
 @Module({})
 export class AppModule implements OnApplicationShutdown {
@@ -17,7 +18,7 @@ export class AppModule implements OnApplicationShutdown {
   static forRoot(config: AppConfig): DynamicModule {
     return {
       module: AppModule,
-      imports: [CoreModule.forRoot(config), JobsModule, AuthModule, HealthModule, PartiesModule, UsersModule, DashboardModule, EstimatesModule],
+      imports: [CoreModule.forRoot(config), JobsModule, AuthModule, HealthModule, PartiesModule, UsersModule, DashboardModule, EstimatesModule, RateSheetsModule],
     };
   }
 
