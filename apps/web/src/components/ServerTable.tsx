@@ -1,4 +1,6 @@
 import type { ReactNode } from 'react';
+import { Group, Stack } from '@mantine/core';
+import { useMediaQuery } from '@mantine/hooks';
 import type { UseQueryResult } from '@tanstack/react-query';
 import type { Page } from '@hitchbook/shared/schemas/common';
 import {
@@ -26,7 +28,7 @@ interface ServerTableProps<T extends MRT_RowData> {
   /** Without one the list has no search box (the route does not search). */
   searchPlaceholder?: string;
   emptyState: ReactNode;
-  /** Filters and buttons shown left of the search box. */
+  /** Filters shown above the table, where they have room to wrap on a phone. */
   toolbar?: ReactNode;
   rowActions?: (row: T) => ReactNode;
 }
@@ -39,6 +41,8 @@ export function ServerTable<T extends MRT_RowData>(props: ServerTableProps<T>) {
   const { columns, query, params, onParamsChange, getRowId, searchPlaceholder, emptyState, toolbar, rowActions } = props;
   const pagination: MRT_PaginationState = { pageIndex: params.page - 1, pageSize: params.pageSize };
   const sorting: MRT_SortingState = sortingFromParam(params.sort);
+  // On a phone the last column is off screen, so the row's buttons come first.
+  const phone = useMediaQuery('(max-width: 48em)');
 
   const table = useMantineReactTable<T>({
     columns,
@@ -56,7 +60,7 @@ export function ServerTable<T extends MRT_RowData>(props: ServerTableProps<T>) {
     enableSortingRemoval: false,
     enableMultiSort: false,
     enableRowActions: Boolean(rowActions),
-    positionActionsColumn: 'last',
+    positionActionsColumn: phone ? 'first' : 'last',
     renderRowActions: rowActions ? ({ row }) => rowActions(row.original) : undefined,
     enableGlobalFilter: Boolean(searchPlaceholder),
     enableSorting: columns.some((c) => c.enableSorting !== false),
@@ -82,9 +86,16 @@ export function ServerTable<T extends MRT_RowData>(props: ServerTableProps<T>) {
     mantinePaginationProps: { rowsPerPageOptions: PAGE_SIZES.map(String) },
     mantinePaperProps: { withBorder: true, shadow: 'none' },
     mantineTableContainerProps: { style: { overflowX: 'auto' } },
-    renderTopToolbarCustomActions: toolbar ? () => toolbar : undefined,
     renderEmptyRowsFallback: () => (query.isError ? <QueryError error={query.error} /> : emptyState),
   });
 
-  return <MantineReactTable table={table} />;
+  if (!toolbar) return <MantineReactTable table={table} />;
+  return (
+    <Stack gap="sm">
+      <Group gap="sm" wrap="wrap">
+        {toolbar}
+      </Group>
+      <MantineReactTable table={table} />
+    </Stack>
+  );
 }

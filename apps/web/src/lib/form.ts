@@ -80,7 +80,13 @@ export function useServerForm<Values extends FormValues, Payload, Result>(
       ...remapErrors(resolver(toPayload(values) as Record<string, unknown>), issuePath, values),
       ...check?.(values),
     }),
-    validateInputOnBlur: true,
+    // A field is checked when left after typing in it; an untouched empty field stays quiet,
+    // so moving past it (say, to "Forgot your password?") does not shout at the user.
+    enhanceGetInputProps: ({ field, form: self }) => ({
+      onBlur: () => {
+        if (self.isDirty(field)) self.validateField(field);
+      },
+    }),
   });
   const [formError, setFormError] = useState<string | null>(null);
 

@@ -177,11 +177,11 @@ export function Component() {
                       }
                     }}
                   />
-                  <SimpleGrid cols={2} spacing="sm">
+                  <SimpleGrid cols={2} spacing="sm" style={{ alignItems: 'end' }}>
                     <DecimalInput label="List price" prefix="$" description="New, today" {...input('listPrice')} />
                     <DecimalInput label="Purchase price" prefix="$" description="What you paid" {...input('purchasePrice')} />
                   </SimpleGrid>
-                  <SimpleGrid cols={2} spacing="sm">
+                  <SimpleGrid cols={2} spacing="sm" style={{ alignItems: 'end' }}>
                     <DecimalInput label="Years owned" unit="yr" inputMode="numeric" {...input('yearsOwned')} />
                     <DecimalInput label="Use per year" unit="h/yr" inputMode="numeric" {...input('hoursPerYear')} />
                     <DecimalInput label="Age when bought" unit="yr" inputMode="numeric" {...input('ageAtPurchase')} />
@@ -190,7 +190,7 @@ export function Component() {
                 </Section>
 
                 <Section title="Ownership">
-                  <SimpleGrid cols={2} spacing="sm">
+                  <SimpleGrid cols={2} spacing="sm" style={{ alignItems: 'end' }}>
                     <DecimalInput label="Interest rate" unit="%" {...input('interestRatePct')} />
                     <DecimalInput
                       label="Taxes, insurance, housing"
@@ -218,7 +218,7 @@ export function Component() {
                 <Section title="Running costs">
                   {engine ? (
                     <>
-                      <SimpleGrid cols={2} spacing="sm">
+                      <SimpleGrid cols={2} spacing="sm" style={{ alignItems: 'end' }}>
                         <DecimalInput label="PTO horsepower" unit="hp" inputMode="numeric" {...input('ptoHp')} />
                         <DecimalInput label="Fuel price" prefix="$" unit="/gal" {...input('fuelPricePerGallon')} />
                       </SimpleGrid>
@@ -239,7 +239,7 @@ export function Component() {
                       An implement burns no fuel of its own; the tractor pulling it carries that cost.
                     </Text>
                   )}
-                  <SimpleGrid cols={2} spacing="sm">
+                  <SimpleGrid cols={2} spacing="sm" style={{ alignItems: 'end' }}>
                     <DecimalInput label="Operator wage" prefix="$" unit="/h" {...input('laborWagePerHour')} />
                     <DecimalInput
                       label="Labour factor"

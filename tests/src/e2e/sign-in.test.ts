@@ -1,0 +1,67 @@
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import {
+  baseUrlOrThrow,
+  DEMO_SIGN_INS,
+  DESKTOP,
+  inFreshPage,
+  launchBrowser,
+  PHONE,
+  screenshot,
+  signIn,
+} from './browser.js';
+
+let browser: Browser;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function refusalAfterSignIn(page: Page, email: string, password: string): Promise<string> {
+  await signIn(page, email, password);
+  const alert = page.getByTestId('form-error');
+  await alert.waitFor();
+  return (await alert.textContent())?.trim() ?? '';
+}
+
+describe('sign-in refusal', () => {
+  it('answers a wrong password and an unknown e-mail with the same words', async () => {
+    await inFreshPage(browser, DESKTOP, 'sign-in-refusal', async ({ page }) => {
+      const wrongPassword = await refusalAfterSignIn(page, DEMO_SIGN_INS.owner, 'not-the-password');
+      await screenshot(page, 'sign-in-refused-desktop');
+      const unknownEmail = await refusalAfterSignIn(page, `nobody-${Date.now()}@hitchbook.test`, 'not-the-password');
+
+      expect(wrongPassword).toBe('Wrong e-mail or password.');
+      expect(unknownEmail).toBe(wrongPassword);
+      expect(new URL(page.url()).pathname).toBe('/sign-in');
+      expect(await page.getByTestId('user-menu').count()).toBe(0);
+    });
+  });
+
+  it('offers the password reset from the sign-in form on a phone and gives the same answer for any e-mail', async () => {
+    await inFreshPage(browser, PHONE, 'password-reset', async ({ page }) => {
+      await page.goto(`${baseUrlOrThrow()}/sign-in`);
+      const forgot = page.getByRole('link', { name: 'Forgot your password?' });
+      await forgot.waitFor();
+      await screenshot(page, 'sign-in-phone');
+      await forgot.click();
+      await page.getByRole('heading', { name: 'Reset your password' }).waitFor();
+      await page.getByLabel('E-mail').fill(DEMO_SIGN_INS.operator);
+      await page.getByRole('button', { name: 'Send the reset link' }).click();
+      const answer = page.getByTestId('reset-requested');
+      await answer.waitFor();
+      const forKnown = (await answer.textContent())?.trim();
+      await screenshot(page, 'reset-requested-phone');
+
+      await page.goto(`${baseUrlOrThrow()}/forgot-password`);
+      await page.getByLabel('E-mail').fill(`nobody-${Date.now()}@hitchbook.test`);
+      await page.getByRole('button', { name: 'Send the reset link' }).click();
+      await answer.waitFor();
+      expect((await answer.textContent())?.trim()).toBe(forKnown);
+    });
+  });
+});
