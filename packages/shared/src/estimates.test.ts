@@ -39,11 +39,11 @@ function a329Request(extra: Record<string, unknown> = {}) {
 }
 
 describe('listMachineClasses', () => {
-  it('answers with the contract fields only, coefficients as decimal strings', () => {
+  it('answers with the contract fields plus typical field operation, coefficients as decimal strings', () => {
     const classes = listMachineClasses();
     expect(classes).toHaveLength(21);
     for (const machineClass of classes) {
-      expect(Object.keys(machineClass).sort()).toEqual(['id', 'kind', 'label', 'lifeHours', 'remainingValue', 'rf1', 'rf2']);
+      expect(Object.keys(machineClass).sort()).toEqual(['fieldOperation', 'id', 'kind', 'label', 'lifeHours', 'remainingValue', 'rf1', 'rf2']);
       expect(typeof machineClass.rf1).toBe('string');
       expect(Number.isInteger(machineClass.lifeHours)).toBe(true);
     }
