@@ -1,7 +1,7 @@
 #!/usr/bin/env node
 // npm test: build, fresh test databases, local fakes, then every workspace's vitest suite; ends with "N passed, M failed".
 import { randomBytes } from 'node:crypto';
-import { closeSync, existsSync, mkdtempSync, openSync, readFileSync, rmSync } from 'node:fs';
+import { closeSync, mkdtempSync, openSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { apiEnvironment, startApi } from '../lib/api-server.mjs';
@@ -13,14 +13,14 @@ import { claimSingleRun } from '../lib/locks.mjs';
 import { DevstackError, formatSeconds, info, Interrupted, printTimings, recordTiming, step, warn } from '../lib/log.mjs';
 import { freePort } from '../lib/net.mjs';
 import { ensureNodeModules } from '../lib/npm-deps.mjs';
-import { inRepo } from '../lib/paths.mjs';
 import { createDatabase, dropDatabase } from '../lib/pg.mjs';
 import { usePostgres } from '../lib/pg-session.mjs';
 import { enterCleanup, installSignalHandlers } from '../lib/proc.mjs';
 import { resultsDir, runWorkspaceTests } from '../lib/vitest-run.mjs';
+import { hasTestFiles, listWorkspaces, orderWorkspaces } from '../lib/workspaces.mjs';
 
 /** In this order: pure code first, the browser tests against a running API last. */
-const WORKSPACES = ['packages/shared', 'packages/mail-catcher', 'packages/db', 'apps/api', 'apps/web', 'tests'];
+const WORKSPACE_ORDER = ['packages/shared', 'packages/mail-catcher', 'packages/db', 'apps/api', 'apps/web', 'tests'];
 const E2E_WORKSPACE = 'tests';
 const TEST_DATABASE = 'hitchbook_test';
 const E2E_DATABASE = 'hitchbook_e2e';
@@ -121,9 +121,9 @@ async function main() {
       CHROMIUM_PATH: CHROMIUM,
     });
 
-    for (const workspace of WORKSPACES) {
-      if (!existsSync(inRepo(workspace, 'package.json'))) {
-        results.push({ workspace, passed: 0, failed: 0, note: 'no such workspace' });
+    for (const workspace of orderWorkspaces(WORKSPACE_ORDER, listWorkspaces())) {
+      if (!hasTestFiles(workspace)) {
+        results.push({ workspace, passed: 0, failed: 0, note: 'skipped: no test files' });
         continue;
       }
       if (Date.now() > deadline) {
