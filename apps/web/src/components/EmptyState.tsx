@@ -5,10 +5,9 @@ import { IconInbox } from '@tabler/icons-react';
 interface EmptyStateProps {
   title: string;
   children?: ReactNode;
-  action?: ReactNode;
 }
 
-export function EmptyState({ title, children, action }: EmptyStateProps) {
+export function EmptyState({ title, children }: EmptyStateProps) {
   return (
     <Stack align="center" gap="xs" py="xl" px="md" ta="center">
       <ThemeIcon size={56} radius="xl" variant="light" color="slate">
@@ -22,7 +21,6 @@ export function EmptyState({ title, children, action }: EmptyStateProps) {
           {children}
         </Text>
       )}
-      {action}
     </Stack>
   );
 }

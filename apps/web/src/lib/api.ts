@@ -85,7 +85,7 @@ const FALLBACK_MESSAGES: Record<number, string> = {
   503: "The server can't reach its database right now. Try again in a few minutes.",
 };
 
-export function fallbackMessage(status: number): string {
+function fallbackMessage(status: number): string {
   return FALLBACK_MESSAGES[status] ?? 'Something went wrong on the server. Try again.';
 }
 

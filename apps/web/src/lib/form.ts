@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { useForm, type FormErrors, type UseFormReturnType } from '@mantine/form';
+import { useForm, type FormErrors } from '@mantine/form';
 import type { UseMutationResult } from '@tanstack/react-query';
 import { zod4Resolver } from 'mantine-form-zod-resolver';
 import type { $ZodType } from 'zod/v4/core';
@@ -28,17 +28,19 @@ function remapErrors<Values>(errors: FormErrors, issuePath: IssuePathMap<Values>
   return mapped;
 }
 
-/**
- * Puts each server issue on the field it names and returns what is left for a banner above
- * the form: the server's message plus any issue that no field on this form can show.
- */
-export function applyServerErrors<Values extends FormValues>(
-  form: UseFormReturnType<Values>,
+export interface PlacedIssues {
+  fieldErrors: FormErrors;
+  /** The server's message plus every issue that no field on this form can show. */
+  banner: string;
+}
+
+/** Sorts a failed request's issues into those a field can show and those only a banner can. */
+export function placeServerIssues<Values>(
+  values: Values,
   error: unknown,
   issuePath: IssuePathMap<Values> = samePath,
-): string {
-  if (!isApiError(error)) return 'Something went wrong. Try again.';
-  const values = form.getValues();
+): PlacedIssues {
+  if (!isApiError(error)) return { fieldErrors: {}, banner: 'Something went wrong. Try again.' };
   const fieldErrors: FormErrors = {};
   const unplaced: string[] = [];
   for (const issue of error.issues) {
@@ -46,8 +48,7 @@ export function applyServerErrors<Values extends FormValues>(
     if (path && hasPath(values, path)) fieldErrors[path] ??= issue.message;
     else unplaced.push(issue.message);
   }
-  form.setErrors(fieldErrors);
-  return [error.message, ...unplaced.filter((m) => m !== error.message)].join(' ');
+  return { fieldErrors, banner: [error.message, ...unplaced.filter((m) => m !== error.message)].join(' ') };
 }
 
 interface ServerFormOptions<Values extends FormValues, Payload, Result> {
@@ -95,7 +96,11 @@ export function useServerForm<Values extends FormValues, Payload, Result>(
       setFormError(null);
       mutation.mutate(toPayload(values), {
         onSuccess: (result) => onSuccess?.(result, values),
-        onError: (error) => setFormError(applyServerErrors(form, error, issuePath)),
+        onError: (error) => {
+          const { fieldErrors, banner } = placeServerIssues(form.getValues(), error, issuePath);
+          form.setErrors(fieldErrors);
+          setFormError(banner);
+        },
       });
     },
     // A rule about the request as a whole (or a hidden field) has no input to show it under.

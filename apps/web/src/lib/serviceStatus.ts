@@ -22,12 +22,17 @@ export function noteServerSuccess(): void {
   set(false);
 }
 
+export function isDatabaseDown(): boolean {
+  return databaseDown;
+}
+
+function subscribe(listener: () => void) {
+  listeners.add(listener);
+  return () => {
+    listeners.delete(listener);
+  };
+}
+
 export function useDatabaseDown(): boolean {
-  return useSyncExternalStore(
-    (listener) => {
-      listeners.add(listener);
-      return () => listeners.delete(listener);
-    },
-    () => databaseDown,
-  );
+  return useSyncExternalStore(subscribe, isDatabaseDown);
 }
