@@ -1,10 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { MACHINE_CLASSES, type MachineClass } from '@hitchbook/shared/machine-classes';
+import { listMachineClasses, type MachineClassResponse } from '@hitchbook/shared/estimates';
 import { machineCostRequestSchema } from '@hitchbook/shared/schemas/estimates';
 import { EMPTY_MACHINE_RATE, machineRateIssuePath, toMachineRatePayload, type MachineRateValues } from './machineRateForm';
 
-function machineClass(id: string): MachineClass {
-  const found = MACHINE_CLASSES.find((c) => c.id === id);
+/** The class as GET /api/estimates/machine-classes sends it. */
+function machineClass(id: string): MachineClassResponse {
+  const found = listMachineClasses().find((c) => c.id === id);
   if (!found) throw new Error(`no class ${id}`);
   return found;
 }

@@ -1,4 +1,5 @@
-import { hasEngine, type MachineClass } from '@hitchbook/shared/machine-classes';
+import type { MachineClassResponse } from '@hitchbook/shared/estimates';
+import { hasEngine } from '@hitchbook/shared/machine-classes';
 import type { FieldCapacityRequestInput, MachineCostRequestInput } from '@hitchbook/shared/schemas/estimates';
 
 /** Every field stays text while typed and goes to the server as a decimal string. */
@@ -58,11 +59,11 @@ export interface MachineRatePayload {
 const typed = (text: string): string | undefined => (text.trim() === '' ? undefined : text.trim());
 
 /** Implements burn no fuel of their own; before a class is picked, the engine fields count. */
-export function showsEngineFields(machineClass: MachineClass | undefined): boolean {
+export function showsEngineFields(machineClass: MachineClassResponse | undefined): boolean {
   return machineClass ? hasEngine(machineClass) : true;
 }
 
-export function toMachineRatePayload(values: MachineRateValues, machineClass: MachineClass | undefined): MachineRatePayload {
+export function toMachineRatePayload(values: MachineRateValues, machineClass: MachineClassResponse | undefined): MachineRatePayload {
   const engine = showsEngineFields(machineClass);
   // Required fields may still be blank while typing; the schema check before sending names them.
   const cost: MachineCostRequestInput = {

@@ -1,9 +1,9 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { MachineClass } from '@hitchbook/shared/machine-classes';
+import type { MachineClassResponse } from '@hitchbook/shared/estimates';
 import { api } from '../../../lib/api';
 
 export function getMachineClasses(signal?: AbortSignal) {
-  return api.get<MachineClass[]>('/api/estimates/machine-classes', { signal });
+  return api.get<MachineClassResponse[]>('/api/estimates/machine-classes', { signal });
 }
 
 export function machineClassesQueryOptions() {

@@ -1,6 +1,7 @@
 import type React from 'react';
 import { Select, Text } from '@mantine/core';
-import type { MachineClass, MachineKind } from '@hitchbook/shared/machine-classes';
+import type { MachineClassResponse } from '@hitchbook/shared/estimates';
+import type { MachineKind } from '@hitchbook/shared/machine-classes';
 import { formatDecimal } from '../../../lib/money';
 
 const KIND_GROUPS: { kind: MachineKind; label: string }[] = [
@@ -10,11 +11,11 @@ const KIND_GROUPS: { kind: MachineKind; label: string }[] = [
 ];
 
 interface MachineClassSelectProps {
-  classes: MachineClass[] | undefined;
+  classes: MachineClassResponse[] | undefined;
   loading: boolean;
   value: string;
   error: React.ReactNode;
-  onChange: (machineClass: MachineClass | null) => void;
+  onChange: (machineClass: MachineClassResponse | null) => void;
 }
 
 export function MachineClassSelect({ classes, loading, value, error, onChange }: MachineClassSelectProps) {

@@ -13,7 +13,7 @@ import {
 import { useMutation } from '@tanstack/react-query';
 import { formatMoney } from '@hitchbook/shared/money';
 import { fieldCapacityRequestSchema, machineCostRequestSchema } from '@hitchbook/shared/schemas/estimates';
-import type { MachineClass } from '@hitchbook/shared/machine-classes';
+import type { MachineClassResponse } from '@hitchbook/shared/estimates';
 import { z } from 'zod';
 import { DecimalInput } from '../../../components/DecimalInput';
 import { EmptyState } from '../../../components/EmptyState';
@@ -127,7 +127,7 @@ export function Component() {
   const classes = useMachineClasses();
   const resultRef = useRef<HTMLDivElement>(null);
   const [result, setResult] = useState<MachineRateResult | null>(null);
-  const [machineClass, setMachineClass] = useState<MachineClass | undefined>(undefined);
+  const [machineClass, setMachineClass] = useState<MachineClassResponse | undefined>(undefined);
   const engine = showsEngineFields(machineClass);
 
   const { form, onSubmit, formError, submitting } = useServerForm({
