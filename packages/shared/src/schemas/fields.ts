@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { singleLineText, uuidSchema } from './common.js';
-import { optionalLine, optionalNotes, scaledDecimal, type RuleIssue } from './machines.js';
+import { optionalLine, optionalNotes, scaledDecimal, whenValid, type RuleIssue } from './machines.js';
 
 export const FIELD_KINDS = ['field', 'roadside'] as const;
 export type FieldKind = (typeof FIELD_KINDS)[number];
@@ -142,7 +142,7 @@ export const fieldCreateSchema = z
   .strictObject({ kind: oneOf(FIELD_KINDS).default('field'), ...fieldFields })
   .superRefine((field, ctx) => {
     for (const issue of fieldRuleIssues(field)) ctx.addIssue({ code: 'custom', path: [issue.path], message: issue.message });
-  });
+  }, whenValid('kind', FIELD_KINDS));
 export type FieldCreateInput = z.input<typeof fieldCreateSchema>;
 export type FieldCreate = z.output<typeof fieldCreateSchema>;
 

@@ -119,7 +119,6 @@ const isEmpty = (value: unknown) => value === undefined || value === null;
  * The API runs these again on the merged row of an update.
  */
 export function machineRuleIssues(machine: MachineRuleSubject): RuleIssue[] {
-  if (!(MACHINE_CLASS_IDS as readonly string[]).includes(machine.classId)) return [];
   const machineClass = machineClassOrThrow(machine.classId);
   const issues: RuleIssue[] = [];
   if (machineClass.kind === 'power' && isEmpty(machine.ptoHp)) {
@@ -130,6 +129,19 @@ export function machineRuleIssues(machine: MachineRuleSubject): RuleIssue[] {
     if (!isEmpty(machine.fuelType)) issues.push({ path: 'fuelType', message: 'An implement has no engine: leave the fuel type empty' });
   }
   return issues;
+}
+
+/**
+ * Lets a cross-field rule run even when another field already failed, as long as the field the rule
+ * hinges on is valid: the caller then sees every problem at once instead of one round at a time.
+ */
+export function whenValid(key: string, values: readonly string[]) {
+  return {
+    when: (payload: { value: unknown }) => {
+      const value = payload.value as Record<string, unknown> | null;
+      return typeof value === 'object' && value !== null && values.includes(value[key] as string);
+    },
+  };
 }
 
 function addRuleIssues(issues: RuleIssue[], ctx: z.RefinementCtx) {
@@ -168,7 +180,7 @@ export const machineCreateSchema = z
     /** Owners from the purchase date (or today). A partner who leaves this out owns the new machine outright. */
     owners: shareLinesSchema.optional(),
   })
-  .superRefine((machine, ctx) => addRuleIssues(machineRuleIssues(machine), ctx));
+  .superRefine((machine, ctx) => addRuleIssues(machineRuleIssues(machine), ctx), whenValid('classId', MACHINE_CLASS_IDS));
 export type MachineCreateInput = z.input<typeof machineCreateSchema>;
 export type MachineCreate = z.output<typeof machineCreateSchema>;
 
@@ -278,7 +290,9 @@ export function costEntryRuleIssues(entry: CostRuleSubject): RuleIssue[] {
   return issues;
 }
 
-export const costEntryCreateSchema = z.strictObject(costFields).superRefine((entry, ctx) => addRuleIssues(costEntryRuleIssues(entry), ctx));
+export const costEntryCreateSchema = z
+  .strictObject(costFields)
+  .superRefine((entry, ctx) => addRuleIssues(costEntryRuleIssues(entry), ctx), whenValid('category', COST_CATEGORIES));
 export type CostEntryCreateInput = z.input<typeof costEntryCreateSchema>;
 export type CostEntryCreate = z.output<typeof costEntryCreateSchema>;
 

@@ -1,0 +1,43 @@
+import type { Machine } from '@hitchbook/db';
+import { machineClassOrThrow, type MachineClassId } from '@hitchbook/shared/machine-classes';
+import type { MachineDto } from '@hitchbook/shared/schemas/machines';
+import type { ShareRow } from './shares.repository.js';
+import { toOwnerDto } from './shares.service.js';
+
+/** Prices are money: they are left out of the response altogether for roles that see no money. */
+export function toMachineDto(row: Machine, owners: readonly ShareRow[], withMoney: boolean): MachineDto {
+  const dto: MachineDto = {
+    id: row.id,
+    name: row.name,
+    classId: row.classId as MachineClassId,
+    classLabel: machineClassOrThrow(row.classId).label,
+    kind: row.kind,
+    make: row.make,
+    model: row.model,
+    year: row.year,
+    serialNumber: row.serialNumber,
+    unitNumber: row.unitNumber,
+    ptoHp: row.ptoHp,
+    fuelType: row.fuelType,
+    widthFt: row.widthFt,
+    purchaseDate: row.purchaseDate,
+    hoursAtPurchase: row.hoursAtPurchase,
+    plannedYearsOwned: row.plannedYearsOwned,
+    plannedHoursPerYear: row.plannedHoursPerYear,
+    speedMph: row.speedMph,
+    fieldEfficiencyPct: row.fieldEfficiencyPct,
+    repairFactor1: row.repairFactor1,
+    repairFactor2: row.repairFactor2,
+    status: row.status,
+    photoUploadId: row.photoUploadId,
+    notes: row.notes,
+    owners: owners.map(toOwnerDto),
+    createdAt: row.createdAt.toISOString(),
+    updatedAt: row.updatedAt.toISOString(),
+  };
+  if (withMoney) {
+    dto.listPrice = row.listPrice;
+    dto.purchasePrice = row.purchasePrice;
+  }
+  return dto;
+}
