@@ -5,6 +5,10 @@ import { DB, type DbHandle } from './core/database.js';
 import { JobsModule } from './core/jobs.module.js';
 import { AuthModule } from './modules/auth/auth.module.js';
 import { DashboardModule } from './modules/dashboard/dashboard.module.js';
+import { FieldsModule } from './modules/fields/fields.module.js';
+import { MachinesModule } from './modules/machines/machines.module.js';
+import { UploadsModule } from './modules/uploads/uploads.module.js';
+import { WorkTypesModule } from './modules/work-types/work-types.module.js';
 import { EstimatesModule } from './modules/estimates/estimates.module.js';
 import { HealthModule } from './modules/health/health.module.js';
 import { PartiesModule } from './modules/parties/parties.module.js';
@@ -18,7 +22,7 @@ export class AppModule implements OnApplicationShutdown {
   static forRoot(config: AppConfig): DynamicModule {
     return {
       module: AppModule,
-      imports: [CoreModule.forRoot(config), JobsModule, AuthModule, HealthModule, PartiesModule, UsersModule, DashboardModule, EstimatesModule, RateSheetsModule],
+      imports: [CoreModule.forRoot(config), JobsModule, AuthModule, HealthModule, PartiesModule, UsersModule, DashboardModule, EstimatesModule, RateSheetsModule, UploadsModule, MachinesModule, FieldsModule, WorkTypesModule],
     };
   }
 
