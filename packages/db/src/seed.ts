@@ -2,6 +2,7 @@ import { fileURLToPath } from 'node:url';
 import bcrypt from 'bcrypt';
 import { sql } from 'drizzle-orm';
 import { createDb, type Database, type Transaction } from './client.js';
+import { seedFleet } from './demo/fleet.js';
 import { DEMO_PASSWORD, demoCustomers, demoHouseholds, demoOperation, demoUsers } from './demo/people.js';
 import { memberships, operations, parties, users } from './schema/index.js';
 
@@ -18,7 +19,7 @@ export interface DemoContext {
 
 /** Later parts of the demo (fleet, work, billing, square-up); each runs once, in order, in the seed's transaction. */
 export type DemoPart = (tx: Transaction, ctx: DemoContext) => Promise<void>;
-const demoParts: DemoPart[] = [];
+const demoParts: DemoPart[] = [seedFleet];
 
 /** Seeds the invented demo outfit once; a second run finds the owner and leaves everything alone. */
 export async function seedDemo(db: Database): Promise<'seeded' | 'already-seeded'> {
