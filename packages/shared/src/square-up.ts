@@ -153,16 +153,17 @@ function shareKey(machineId: string, from: string): string {
 }
 
 /** Share sets the engine can split by: every owner a household and the shares summing to 100. */
-function usableShareSets(input: StatementInput, households: ReadonlySet<string>, warnings: Warnings): Map<string, OwnershipShare[] | null> {
+// Owners in the households' order, so splits and credits always list (and round) the same way.
+function usableShareSets(input: StatementInput, households: ReadonlyMap<string, number>, warnings: Warnings): Map<string, OwnershipShare[] | null> {
   const sets = new Map<string, OwnershipShare[] | null>();
   for (const set of input.shareSets) {
     const total = set.shares.reduce((sum, share) => sum.plus(parseDecimalOrThrow(share.sharePct, 'sharePct')), new Dec(0));
     const usable = total.eq(100) && set.shares.every((share) => households.has(share.partyId));
     if (!usable) warnings.add('share-set-invalid', set.machineId, set.effectiveFrom, {});
-    sets.set(
-      shareKey(set.machineId, set.effectiveFrom),
-      usable ? set.shares.map((share) => ({ householdId: share.partyId, ownershipPct: share.sharePct })) : null,
-    );
+    const owners = [...set.shares]
+      .sort((a, b) => (households.get(a.partyId) ?? 0) - (households.get(b.partyId) ?? 0))
+      .map((share) => ({ householdId: share.partyId, ownershipPct: share.sharePct }));
+    sets.set(shareKey(set.machineId, set.effectiveFrom), usable ? owners : null);
   }
   return sets;
 }
@@ -186,7 +187,7 @@ export function buildSquareUpStatementOrThrow(input: StatementInput): StatementF
   const machines = new Map(input.machines.map((m) => [m.id, m]));
   const machineName = (id: string | null) => (id ? (machines.get(id)?.name ?? 'a machine') : 'the period');
   const warnings = new Warnings();
-  const sets = usableShareSets(input, householdSet, warnings);
+  const sets = usableShareSets(input, new Map(householdIds.map((id, index) => [id, index])), warnings);
   const tallies = new Map(householdIds.map((id) => [id, { paid: new Dec(0), share: new Dec(0), useCharged: new Dec(0), useCredited: new Dec(0) } as Tally]));
   const engineCosts: SharedCost[] = [];
   const machineRows: StatementMachineDto[] = [];

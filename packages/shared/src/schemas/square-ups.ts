@@ -240,7 +240,8 @@ export interface StatementWorkLineDto {
   hours: string;
   acres: string | null;
   billToName: string;
-  state: 'approved' | 'squared';
+  /** Invoiced only for work billed outside the households on a household's field. */
+  state: 'approved' | 'invoiced' | 'squared';
   /** The household whose use it is: billed to it, or run on its field. */
   householdId: string;
   householdName: string;
@@ -255,6 +256,9 @@ export interface StatementLinePage<T> {
   page: number;
   pageSize: number;
 }
+
+/** The drill-down answer, tagged with the kind asked for. */
+export type StatementLinesDto = ({ kind: 'cost' } & StatementLinePage<StatementCostLineDto>) | ({ kind: 'work' } & StatementLinePage<StatementWorkLineDto>);
 
 export interface TransferDto extends StatementTransferDto {
   id: string;

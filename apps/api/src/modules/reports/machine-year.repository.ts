@@ -1,0 +1,213 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { sql, type SQL } from 'drizzle-orm';
+import type { Executor } from '@hitchbook/db';
+import type { CostCategory } from '@hitchbook/shared/actual-rate';
+import { DB, type DbHandle } from '../../core/database.js';
+import { uuidArray } from './sql-arrays.js';
+
+// A machine's year in sums: every query is scoped by the operation id and bounded by the year's
+// dates, so a year's figures read that year's rows through the date indexes and never the other years'.
+
+/** Entries whose hours are settled: approved, billed on an invoice or squared up between households. */
+export const COUNTED_STATES = sql`('approved', 'invoiced', 'squared')`;
+
+export interface YearBounds {
+  from: string;
+  to: string;
+}
+
+export function yearBounds(year: number): YearBounds {
+  return { from: `${year}-01-01`, to: `${year}-12-31` };
+}
+
+export type MachineRow = {
+  id: string;
+  name: string;
+  classId: string;
+  kind: 'power' | 'self-propelled' | 'implement';
+  status: 'active' | 'sold' | 'retired';
+  modelYear: number | null;
+  ptoHp: string | null;
+  fuelType: 'diesel' | 'gasoline' | 'lpg' | null;
+  listPrice: string | null;
+  purchasePrice: string | null;
+  purchaseDate: string | null;
+  hoursAtPurchase: string;
+  plannedYearsOwned: number | null;
+  plannedHoursPerYear: string | null;
+  repairFactor1: string | null;
+  repairFactor2: string | null;
+};
+
+export type MachineUseSums = {
+  machineId: string;
+  hours: string;
+  acres: string;
+};
+
+/** Costs summed by what the engine needs to spread them over years: improvements keep their year and life. */
+export type CostSums = {
+  machineId: string;
+  category: CostCategory;
+  year: number;
+  lifeYears: number | null;
+  amount: string;
+};
+
+export type FuelPriceSums = {
+  /** null: every machine together. */
+  machineId: string | null;
+  amount: string;
+  gallons: string;
+};
+
+export type FamilySheet = {
+  id: string;
+  name: string;
+  operatorWage: string;
+  laborFactor: string;
+};
+
+/**
+ * Each entry's hours count for its power unit and its implement alike; the lateral VALUES turns one
+ * entry row into one row per machine without reading the table twice.
+ */
+export function machineUseRows(operationId: string, bounds: YearBounds, states: SQL): SQL {
+  return sql`
+    select m.machine_id, we.id as work_entry_id, we.work_date, we.hours, we.acres, we.field_id, we.work_type_id
+    from work_entries we
+    cross join lateral (values (we.power_machine_id), (we.implement_machine_id)) as m(machine_id)
+    where we.operation_id = ${operationId}
+      and we.work_date between ${bounds.from} and ${bounds.to}
+      and we.state in ${states}
+      and m.machine_id is not null`;
+}
+
+export function machineUseSumsQuery(operationId: string, bounds: YearBounds): SQL {
+  return sql`
+    select u.machine_id as "machineId", sum(u.hours)::text as hours, coalesce(sum(u.acres), 0)::text as acres
+    from (${machineUseRows(operationId, bounds, COUNTED_STATES)}) u
+    group by u.machine_id`;
+}
+
+@Injectable()
+export class MachineYearRepository {
+  constructor(@Inject(DB) private readonly dbh: DbHandle) {}
+
+  async machines(operationId: string, ids: readonly string[] | null = null, executor: Executor = this.dbh.db): Promise<MachineRow[]> {
+    const result = await executor.execute<MachineRow>(sql`
+      select id, name, class_id as "classId", kind, status, year as "modelYear", pto_hp::text as "ptoHp", fuel_type as "fuelType",
+             list_price::text as "listPrice", purchase_price::text as "purchasePrice", purchase_date::text as "purchaseDate",
+             hours_at_purchase::text as "hoursAtPurchase", planned_years_owned as "plannedYearsOwned",
+             planned_hours_per_year::text as "plannedHoursPerYear", repair_factor1::text as "repairFactor1", repair_factor2::text as "repairFactor2"
+      from machines
+      where operation_id = ${operationId} ${ids === null ? sql`` : sql`and id = any(${uuidArray(ids)})`}
+      order by name, id`);
+    return result.rows;
+  }
+
+  async useSums(operationId: string, bounds: YearBounds, executor: Executor = this.dbh.db): Promise<MachineUseSums[]> {
+    return (await executor.execute<MachineUseSums>(machineUseSumsQuery(operationId, bounds))).rows;
+  }
+
+  /** The year's costs, plus improvements of earlier years whose life reaches into it. */
+  async costSums(operationId: string, year: number, executor: Executor = this.dbh.db): Promise<CostSums[]> {
+    const bounds = yearBounds(year);
+    const result = await executor.execute<CostSums>(sql`
+      select machine_id as "machineId", category, ${year}::int as year, null::int as "lifeYears", sum(amount)::text as amount
+      from cost_entries
+      where operation_id = ${operationId} and category <> 'improvement' and incurred_on between ${bounds.from} and ${bounds.to}
+      group by machine_id, category
+      union all
+      select machine_id, category, extract(year from incurred_on)::int, improvement_life_years, sum(amount)::text
+      from cost_entries
+      where operation_id = ${operationId} and category = 'improvement' and incurred_on <= ${bounds.to}
+        and extract(year from incurred_on)::int + improvement_life_years > ${year}
+      group by machine_id, category, extract(year from incurred_on), improvement_life_years`);
+    return result.rows;
+  }
+
+  /** What fuel cost per gallon this year, from tickets that recorded gallons: per machine and for the fleet. */
+  async fuelPrices(operationId: string, year: number, executor: Executor = this.dbh.db): Promise<FuelPriceSums[]> {
+    const bounds = yearBounds(year);
+    const result = await executor.execute<FuelPriceSums>(sql`
+      select machine_id as "machineId", sum(amount)::text as amount, sum(gallons)::text as gallons
+      from cost_entries
+      where operation_id = ${operationId} and category = 'fuel' and gallons > 0 and incurred_on between ${bounds.from} and ${bounds.to}
+      group by rollup (machine_id)`);
+    return result.rows;
+  }
+
+  /** The family sheet (for everyone, not a party override) in force on a day. */
+  async familySheetOn(operationId: string, day: string, executor: Executor = this.dbh.db): Promise<FamilySheet | null> {
+    const result = await executor.execute<FamilySheet>(sql`
+      select id, name, operator_wage::text as "operatorWage", labor_factor::text as "laborFactor"
+      from rate_sheets
+      where operation_id = ${operationId} and relationship = 'family' and party_id is null and archived_at is null and effective_from <= ${day}
+      order by effective_from desc, created_at desc
+      limit 1`);
+    return result.rows[0] ?? null;
+  }
+
+  /** What issued (not void) invoices charged for the machine's work of the year, with that work's acres and hours. */
+  async invoicedWork(operationId: string, bounds: YearBounds, executor: Executor = this.dbh.db): Promise<Array<{ machineId: string; revenue: string; acres: string; hours: string }>> {
+    const result = await executor.execute<{ machineId: string; revenue: string; acres: string; hours: string }>(sql`
+      select u.machine_id as "machineId", sum(b.amount)::text as revenue, coalesce(sum(u.acres), 0)::text as acres, sum(u.hours)::text as hours
+      from (${machineUseRows(operationId, bounds, sql`('invoiced')`)}) u
+      cross join lateral (
+        select sum(il.amount) as amount
+        from invoice_lines il
+        join invoices i on i.operation_id = il.operation_id and i.id = il.invoice_id
+        where il.work_entry_id = u.work_entry_id and il.operation_id = ${operationId} and il.kind = 'work'
+          and i.status = 'issued' and i.kind = 'invoice'
+      ) b
+      where b.amount is not null
+      group by u.machine_id`);
+    return result.rows;
+  }
+
+  /**
+   * The neighbour sheet's custom per-acre rates for the work types each machine did this year, weighted
+   * by the machine's acres of each: what the work would have been billed at.
+   */
+  async sheetAcreRates(operationId: string, bounds: YearBounds, executor: Executor = this.dbh.db): Promise<Array<{ machineId: string; amount: string; acres: string }>> {
+    const result = await executor.execute<{ machineId: string; amount: string; acres: string }>(sql`
+      with sheet as (
+        select id from rate_sheets
+        where operation_id = ${operationId} and relationship = 'neighbour' and party_id is null and archived_at is null and effective_from <= ${bounds.to}
+        order by effective_from desc, created_at desc
+        limit 1
+      ),
+      work as (
+        select u.machine_id, u.work_type_id, sum(u.acres) as acres
+        from (${machineUseRows(operationId, bounds, COUNTED_STATES)}) u
+        where u.acres > 0
+        group by u.machine_id, u.work_type_id
+      )
+      select w.machine_id as "machineId", sum(w.acres * l.rate)::text as amount, sum(w.acres)::text as acres
+      from work w
+      join rate_sheet_lines l on l.operation_id = ${operationId} and l.rate_sheet_id = (select id from sheet)
+        and l.work_type_id = w.work_type_id and l.unit = 'acre' and l.charge_type = 'custom'
+      group by w.machine_id`);
+    return result.rows;
+  }
+
+  /** Hours per machine per calendar year over every year with entries: the fleet history chart, read on its own route. */
+  async hoursByYear(operationId: string, executor: Executor = this.dbh.db): Promise<Array<{ machineId: string; year: number; hours: string }>> {
+    const result = await executor.execute<{ machineId: string; year: number; hours: string }>(sql`
+      select m.machine_id as "machineId", extract(year from we.work_date)::int as year, sum(we.hours)::text as hours
+      from work_entries we
+      cross join lateral (values (we.power_machine_id), (we.implement_machine_id)) as m(machine_id)
+      where we.operation_id = ${operationId} and we.state in ${COUNTED_STATES} and m.machine_id is not null
+      group by 1, 2
+      order by 2`);
+    return result.rows;
+  }
+
+  async machineRatesOf(operationId: string, rateSheetId: string, executor: Executor = this.dbh.db): Promise<Map<string, string>> {
+    const result = await executor.execute<{ machineId: string; ratePerHour: string }>(sql`
+      select machine_id as "machineId", rate_per_hour::text as "ratePerHour"
+      from machine_rates where operation_id = ${operationId} and rate_sheet_id = ${rateSheetId}`);
+    return new Map(result.rows.map((row) => [row.machineId, row.ratePerHour]));
+  }
+}
