@@ -14,6 +14,8 @@ import { HealthModule } from './modules/health/health.module.js';
 import { PartiesModule } from './modules/parties/parties.module.js';
 import { UsersModule } from './modules/users/users.module.js';
 import { RateSheetsModule } from './modules/rate-sheets/rate-sheets.module.js';
+import { ReportsModule } from './modules/reports/reports.module.js';
+import { SquareUpsModule } from './modules/square-ups/square-ups.module.js';
 
 @Module({})
 export class AppModule implements OnApplicationShutdown {
@@ -22,7 +24,7 @@ export class AppModule implements OnApplicationShutdown {
   static forRoot(config: AppConfig): DynamicModule {
     return {
       module: AppModule,
-      imports: [CoreModule.forRoot(config), JobsModule, AuthModule, HealthModule, PartiesModule, UsersModule, DashboardModule, EstimatesModule, RateSheetsModule, UploadsModule, MachinesModule, FieldsModule, WorkTypesModule],
+      imports: [CoreModule.forRoot(config), JobsModule, AuthModule, HealthModule, PartiesModule, UsersModule, DashboardModule, EstimatesModule, RateSheetsModule, UploadsModule, MachinesModule, FieldsModule, WorkTypesModule, ReportsModule, SquareUpsModule],
     };
   }
 
