@@ -241,6 +241,12 @@ export interface PaymentDto {
   createdAt: string;
 }
 
+export interface ManualPaymentResultDto {
+  payment: PaymentDto;
+  /** The invoice after the payment, with its new state and balance. */
+  invoice: InvoiceSummaryDto;
+}
+
 export interface InvoiceSendDto {
   queued: true;
   to: string;

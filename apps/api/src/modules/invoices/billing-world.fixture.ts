@@ -1,17 +1,22 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { fields, machines, rateSheetLines, rateSheets, workEntries, workTypes, type Database, type NewRateSheet } from '@hitchbook/db';
-import type { OperationFixture } from '../../test-support/fixtures.js';
+
+/** The parts of a test operation the billing rows need. */
+interface OperationRef {
+  operationId: string;
+  members: { operator: { userId: string } };
+}
 
 /** Made-up work types, fields and machines for one test operation, so billing tests arrange their own rows. */
-export interface BillingWorld {
-  fx: OperationFixture;
+export interface BillingWorld<F extends OperationRef = OperationRef> {
+  fx: F;
   workTypes: { mowing: string; roadside: string; hauling: string; cart: string };
   fields: { creekBottom: string; schoolhouse: string; ditch: string };
   machines: { tractor: string; mower: string };
 }
 
-export async function createBillingWorld(db: Database, fx: OperationFixture): Promise<BillingWorld> {
+export async function createBillingWorld<F extends OperationRef>(db: Database, fx: F): Promise<BillingWorld<F>> {
   const operationId = fx.operationId;
   // The operation may already carry the default work types; these keys are among them.
   await db
@@ -91,4 +96,23 @@ export async function addSheet(db: Database, world: BillingWorld, spec: SheetSpe
     await db.insert(rateSheetLines).values(lines.map((l) => ({ chargeType: 'custom' as const, ...l, operationId: world.fx.operationId, rateSheetId: row!.id })));
   }
   return row!.id;
+}
+
+/**
+ * The neighbour sheet most billing tests use: mowing 18.50 per acre with a 75.00 minimum per entry,
+ * roadside mowing 45.00 per mile, hauling 12.00 per load, 25.00 travel per visit, due in 21 days.
+ */
+export function addNeighbourSheet(db: Database, world: BillingWorld, extra: Partial<SheetSpec> = {}): Promise<string> {
+  return addSheet(db, world, {
+    name: 'Neighbour rates 2025',
+    minimumCharge: '75.00',
+    travelFlat: '25.00',
+    termsDays: 21,
+    lines: [
+      { workTypeId: world.workTypes.mowing, unit: 'acre', rate: '18.5000' },
+      { workTypeId: world.workTypes.roadside, unit: 'mile', rate: '45.0000' },
+      { workTypeId: world.workTypes.hauling, unit: 'load', rate: '12.0000' },
+    ],
+    ...extra,
+  });
 }

@@ -4,8 +4,8 @@ import { createTestApp, type TestApp } from '../../test-support/test-app.js';
 import { createBillingWorld, type BillingWorld } from '../invoices/billing-world.fixture.js';
 
 let t: TestApp;
-let world: BillingWorld;
-let elsewhere: BillingWorld;
+let world: BillingWorld<OperationFixture>;
+let elsewhere: BillingWorld<OperationFixture>;
 let tokens: Awaited<ReturnType<typeof signInAll>>;
 const bearer = (token: string) => ({ Authorization: `Bearer ${token}` });
 

@@ -1,0 +1,99 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { and, asc, eq, gte, inArray, lte, notExists, sql } from 'drizzle-orm';
+import { fields, invoiceEntries, invoices, workEntries, workTypes, type Executor } from '@hitchbook/db';
+import { DB, type DbHandle } from '../../core/database.js';
+import type { EntryToBill } from './draft-pricing.js';
+import { numberLabel } from './invoice-numbers.js';
+
+/** The work entries side of billing: which entries can be billed, and locking them to an invoice. */
+@Injectable()
+export class BillingEntriesRepository {
+  constructor(@Inject(DB) private readonly dbh: DbHandle) {}
+
+  /** Approved entries for the party in the date range that no issued invoice bills yet. */
+  async unbilled(operationId: string, partyId: string, from: string, to: string, executor: Executor = this.dbh.db): Promise<EntryToBill[]> {
+    return executor
+      .select({
+        id: workEntries.id,
+        version: workEntries.version,
+        workDate: workEntries.workDate,
+        workTypeId: workEntries.workTypeId,
+        workTypeName: workTypes.name,
+        defaultUnit: workTypes.defaultUnit,
+        fieldName: fields.name,
+        hours: workEntries.hours,
+        acres: workEntries.acres,
+        miles: workEntries.miles,
+        loads: workEntries.loads,
+        eachCount: workEntries.eachCount,
+      })
+      .from(workEntries)
+      .innerJoin(fields, and(eq(fields.operationId, workEntries.operationId), eq(fields.id, workEntries.fieldId)))
+      .innerJoin(workTypes, and(eq(workTypes.operationId, workEntries.operationId), eq(workTypes.id, workEntries.workTypeId)))
+      .where(
+        and(
+          eq(workEntries.operationId, operationId),
+          eq(workEntries.billToPartyId, partyId),
+          eq(workEntries.state, 'approved'),
+          gte(workEntries.workDate, from),
+          lte(workEntries.workDate, to),
+          notExists(executor.select({ one: sql`1` }).from(invoiceEntries).where(eq(invoiceEntries.workEntryId, workEntries.id))),
+        ),
+      )
+      .orderBy(asc(workEntries.workDate), asc(fields.name));
+  }
+
+  /** The rows whose primary key makes a second bill for the same entry impossible; a clash throws 23505. */
+  async claim(operationId: string, invoiceId: string, entryIds: string[], tx: Executor): Promise<void> {
+    await tx.insert(invoiceEntries).values(entryIds.map((workEntryId) => ({ workEntryId, operationId, invoiceId })));
+  }
+
+  /** Moves the entries to invoiced, only those still approved for this party at the version the draft priced. */
+  async markInvoiced(operationId: string, partyId: string, entries: Array<{ id: string; version: number }>, tx: Executor): Promise<string[]> {
+    const moved: string[] = [];
+    for (const entry of entries) {
+      const [row] = await tx
+        .update(workEntries)
+        .set({ state: 'invoiced', version: sql`${workEntries.version} + 1`, updatedAt: new Date() })
+        .where(
+          and(
+            eq(workEntries.operationId, operationId),
+            eq(workEntries.id, entry.id),
+            eq(workEntries.billToPartyId, partyId),
+            eq(workEntries.state, 'approved'),
+            eq(workEntries.version, entry.version),
+          ),
+        )
+        .returning({ id: workEntries.id });
+      if (row) moved.push(row.id);
+    }
+    return moved;
+  }
+
+  /** Voiding: the invoice lets go of its entries, which are approved and billable again. */
+  async release(operationId: string, invoiceId: string, tx: Executor): Promise<string[]> {
+    const released = await tx
+      .delete(invoiceEntries)
+      .where(and(eq(invoiceEntries.operationId, operationId), eq(invoiceEntries.invoiceId, invoiceId)))
+      .returning({ id: invoiceEntries.workEntryId });
+    const ids = released.map((r) => r.id);
+    if (ids.length > 0) {
+      await tx
+        .update(workEntries)
+        .set({ state: 'approved', version: sql`${workEntries.version} + 1`, updatedAt: new Date() })
+        .where(and(eq(workEntries.operationId, operationId), inArray(workEntries.id, ids), eq(workEntries.state, 'invoiced')));
+    }
+    return ids;
+  }
+
+  /** Which of these entries another invoice already bills, with that invoice's number. */
+  async billedElsewhere(operationId: string, entryIds: string[]): Promise<Array<{ entryId: string; numberLabel: string | null }>> {
+    if (entryIds.length === 0) return [];
+    const rows = await this.dbh.db
+      .select({ entryId: invoiceEntries.workEntryId, series: invoices.series, number: invoices.number })
+      .from(invoiceEntries)
+      .innerJoin(invoices, and(eq(invoices.operationId, invoiceEntries.operationId), eq(invoices.id, invoiceEntries.invoiceId)))
+      .where(and(eq(invoiceEntries.operationId, operationId), inArray(invoiceEntries.workEntryId, entryIds)));
+    return rows.map((r) => ({ entryId: r.entryId, numberLabel: numberLabel(r.series, r.number) }));
+  }
+}

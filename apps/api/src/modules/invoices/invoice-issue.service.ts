@@ -1,0 +1,230 @@
+import { Inject, Injectable } from '@nestjs/common';
+import type { Decimal } from 'decimal.js';
+import { sql } from 'drizzle-orm';
+import { pgErrorOf, UNIQUE_VIOLATION, type Executor, type Invoice, type InvoiceLine } from '@hitchbook/db';
+import { Dec } from '@hitchbook/shared/decimal';
+import { toMoneyString } from '@hitchbook/shared/money';
+import type { CreditNoteCreate, InvoiceDto } from '@hitchbook/shared/schemas/invoices';
+import type { Actor } from '../../common/auth/actor.js';
+import { conflict, invalid, notFound } from '../../common/errors/app-error.js';
+import { AuditService } from '../../core/audit.service.js';
+import { DB, type DbHandle } from '../../core/database.js';
+import { wholeOperation } from '../customer-portal/invoice-scope.js';
+import { BillingEntriesRepository } from './billing-entries.repository.js';
+import { claimIdempotencyKey, saveIdempotentResult } from './idempotency.js';
+import { snapshotOf } from './invoice.dto.js';
+import { numberLabel, SERIES, takeNextNumber } from './invoice-numbers.js';
+import { InvoiceViews } from './invoice-views.service.js';
+import { InvoicesRepository } from './invoices.repository.js';
+
+interface Saved {
+  invoiceId: string;
+}
+
+function billedEntries(lines: InvoiceLine[]): Array<{ id: string; version: number; label: string }> {
+  const byId = new Map<string, { id: string; version: number; label: string }>();
+  for (const l of lines) {
+    if (!l.workEntryId || byId.has(l.workEntryId)) continue;
+    const version = (l.details as { entryVersion?: number } | null)?.entryVersion ?? 0;
+    byId.set(l.workEntryId, { id: l.workEntryId, version, label: `${l.workDate} ${l.fieldName ?? ''}`.trim() });
+  }
+  return [...byId.values()];
+}
+
+/**
+ * Issuing, voiding and crediting: each in one transaction, so a failure anywhere leaves no number taken,
+ * no entry locked and no line changed. Issued documents are never edited afterwards.
+ */
+@Injectable()
+export class InvoiceIssueService {
+  constructor(
+    @Inject(DB) private readonly dbh: DbHandle,
+    @Inject(InvoicesRepository) private readonly repo: InvoicesRepository,
+    @Inject(BillingEntriesRepository) private readonly entries: BillingEntriesRepository,
+    @Inject(InvoiceViews) private readonly views: InvoiceViews,
+    @Inject(AuditService) private readonly audit: AuditService,
+  ) {}
+
+  async issue(actor: Actor, id: string, body: { version?: number }, idempotencyKey?: string): Promise<InvoiceDto> {
+    const operationId = actor.operationId;
+    const remembered = idempotencyKey ? { operationId, key: idempotencyKey, route: 'POST /api/invoices/:id/issue', request: { id, version: body.version ?? null } } : null;
+    let billing: string[] = [];
+    try {
+      const saved = await this.dbh.db.transaction(async (tx): Promise<Saved> => {
+        if (remembered) {
+          const earlier = await claimIdempotencyKey<Saved>(tx, remembered);
+          if (earlier) return earlier;
+        }
+        const invoice = await this.repo.lock(operationId, id, tx);
+        if (!invoice) throw notFound('No such invoice.');
+        if (invoice.status !== 'draft') {
+          throw conflict(invoice.status === 'void' ? 'This invoice is void.' : `This invoice was already issued as ${numberLabel(invoice.series, invoice.number)}.`);
+        }
+        if (body.version !== undefined && body.version !== invoice.version) throw conflict('This draft was changed since you loaded it; reload it before issuing.');
+
+        const entries = billedEntries(await this.repo.lines(operationId, id, tx));
+        billing = entries.map((e) => e.id);
+        const party = (await this.repo.party(operationId, invoice.partyId, tx))!;
+        const issuer = await this.repo.operation(operationId, tx);
+        const number = await takeNextNumber(tx, operationId, invoice.series);
+        // The primary key of invoice_entries refuses an entry another invoice already bills, even when
+        // two issues run at the same moment: the second waits for the first and then fails here.
+        await this.entries.claim(operationId, id, billing, tx);
+        const moved = await this.entries.markInvoiced(operationId, invoice.partyId, entries, tx);
+        if (moved.length !== entries.length) {
+          const stale = entries.filter((e) => !moved.includes(e.id)).map((e) => e.label);
+          throw conflict(`These entries are no longer approved, or changed since the draft was made: ${stale.join('; ')}. Delete this draft and make a new one.`);
+        }
+        await this.repo.update(
+          operationId,
+          id,
+          {
+            status: 'issued',
+            number,
+            issueDate: sql`current_date`,
+            dueDate: sql`current_date + ${invoice.termsDays}::int`,
+            issuerSnapshot: snapshotOf(issuer),
+            partySnapshot: snapshotOf(party),
+            issuedAt: new Date(),
+            issuedBy: actor.userId,
+            version: invoice.version + 1,
+          },
+          tx,
+        );
+        await this.audit.record(
+          this.audit.byActor(actor, 'invoice.issued', 'invoice', id, { after: { number: numberLabel(invoice.series, number), total: invoice.total, entries: billing } }),
+          tx,
+        );
+        if (remembered) await saveIdempotentResult(tx, remembered, { invoiceId: id });
+        return { invoiceId: id };
+      });
+      return await this.views.detailOrThrow(wholeOperation(operationId), saved.invoiceId);
+    } catch (err) {
+      const pg = pgErrorOf(err);
+      if (pg?.code === UNIQUE_VIOLATION && pg.constraint === 'invoice_entries_pkey') {
+        const clashes = await this.entries.billedElsewhere(operationId, billing);
+        const named = clashes.map((c) => `${c.entryId} (on ${c.numberLabel ?? 'another invoice'})`).join(', ');
+        throw conflict(`Some entries are already billed: ${named || 'by an invoice issued a moment ago'}. Delete this draft and make a new one.`);
+      }
+      throw err;
+    }
+  }
+
+  /** A void invoice keeps its number; its entries are approved and billable again. */
+  async void(actor: Actor, id: string, reason: string): Promise<InvoiceDto> {
+    const operationId = actor.operationId;
+    await this.dbh.db.transaction(async (tx) => {
+      const invoice = await this.repo.lock(operationId, id, tx);
+      if (!invoice) throw notFound('No such invoice.');
+      if (invoice.status === 'draft') throw conflict('A draft is not issued; delete it instead.');
+      if (invoice.status === 'void') throw conflict('This invoice is already void.');
+      if (new Dec(invoice.amountPaid).gt(0)) throw conflict('Payments are recorded on this invoice; correct it with a credit note instead.');
+      if ((await this.repo.creditNotesOf(operationId, id, tx)).some((cn) => cn.status === 'issued')) {
+        throw conflict('Credit notes refer to this invoice; correct it with a further credit note instead.');
+      }
+      const released = await this.entries.release(operationId, id, tx);
+      await this.repo.update(operationId, id, { status: 'void', voidedAt: new Date(), voidReason: reason, version: invoice.version + 1 }, tx);
+      await this.audit.record(this.audit.byActor(actor, 'invoice.voided', 'invoice', id, { before: { status: invoice.status }, after: { status: 'void', reason, released } }), tx);
+    });
+    return this.views.detailOrThrow(wholeOperation(operationId), id);
+  }
+
+  /**
+   * A credit note is its own numbered document (series CN) that refers to the original. Its lines and
+   * total are negative, so an invoice and a credit note for all of it add up to zero; the original's
+   * balance goes down by the amount credited.
+   */
+  async creditNote(actor: Actor, id: string, input: CreditNoteCreate, idempotencyKey?: string): Promise<InvoiceDto> {
+    const operationId = actor.operationId;
+    const remembered = idempotencyKey
+      ? { operationId, key: idempotencyKey, route: 'POST /api/invoices/:id/credit-notes', request: { id, reason: input.reason, lines: input.lines?.map((l) => [l.description, l.amount.toFixed()]) ?? null } }
+      : null;
+    const saved = await this.dbh.db.transaction(async (tx): Promise<Saved> => {
+      if (remembered) {
+        const earlier = await claimIdempotencyKey<Saved>(tx, remembered);
+        if (earlier) return earlier;
+      }
+      const original = await this.repo.lock(operationId, id, tx);
+      if (!original) throw notFound('No such invoice.');
+      if (original.kind !== 'invoice' || original.status !== 'issued') throw conflict('Only an issued invoice can be credited.');
+      const credited = (await this.repo.creditNotesOf(operationId, id, tx)).filter((cn) => cn.status === 'issued').reduce((s, cn) => s.minus(cn.total), new Dec(0));
+      const lines = input.lines ? creditLines(input.lines) : await this.reversedLines(original, credited, tx);
+      const total = lines.reduce((s, l) => s.plus(l.amount), new Dec(0));
+      const left = new Dec(original.total).minus(credited);
+      if (total.neg().gt(left)) {
+        throw invalid('lines', `This credits ${toMoneyString(total.neg())}, but only ${toMoneyString(left)} of ${numberLabel(original.series, original.number)} is left to credit.`);
+      }
+      const party = (await this.repo.party(operationId, original.partyId, tx))!;
+      const issuer = await this.repo.operation(operationId, tx);
+      const number = await takeNextNumber(tx, operationId, SERIES['credit-note']);
+      const note = await this.repo.insert(
+        {
+          operationId,
+          kind: 'credit-note',
+          series: SERIES['credit-note'],
+          number,
+          partyId: original.partyId,
+          status: 'issued',
+          periodFrom: original.periodFrom,
+          periodTo: original.periodTo,
+          issueDate: sql`current_date`,
+          termsDays: 0,
+          subtotal: toMoneyString(total),
+          total: toMoneyString(total),
+          notes: input.reason,
+          creditOfInvoiceId: original.id,
+          issuerSnapshot: snapshotOf(issuer),
+          partySnapshot: snapshotOf(party),
+          issuedAt: new Date(),
+          issuedBy: actor.userId,
+          createdBy: actor.userId,
+        },
+        tx,
+      );
+      await this.repo.insertLines(operationId, note.id, lines.map((l, i) => ({ ...l, amount: toMoneyString(l.amount), position: i + 1 })), tx);
+      await this.audit.record(
+        this.audit.byActor(actor, 'credit-note.issued', 'invoice', note.id, {
+          after: { number: numberLabel(SERIES['credit-note'], number), creditOf: numberLabel(original.series, original.number), total: toMoneyString(total), reason: input.reason },
+        }),
+        tx,
+      );
+      if (remembered) await saveIdempotentResult(tx, remembered, { invoiceId: note.id });
+      return { invoiceId: note.id };
+    });
+    return this.views.detailOrThrow(wholeOperation(operationId), saved.invoiceId);
+  }
+
+  /** Without lines, the credit note reverses the original line by line, which only makes sense once. */
+  private async reversedLines(original: Invoice, credited: Decimal, tx: Executor) {
+    if (credited.gt(0)) throw conflict('Part of this invoice was credited already; give the lines to credit.');
+    return (await this.repo.lines(original.operationId, original.id, tx)).map((l) => ({
+      kind: l.kind,
+      workEntryId: l.workEntryId,
+      workDate: l.workDate,
+      description: l.description,
+      fieldName: l.fieldName,
+      workTypeName: l.workTypeName,
+      quantity: l.quantity,
+      unit: l.unit,
+      rate: l.rate,
+      amount: new Dec(l.amount).neg(),
+      details: { reverses: l.id },
+    }));
+  }
+}
+
+function creditLines(lines: NonNullable<CreditNoteCreate['lines']>) {
+  return lines.map((l) => ({
+    kind: 'adjustment' as const,
+    workEntryId: null,
+    workDate: null,
+    description: l.description,
+    fieldName: null,
+    workTypeName: null,
+    quantity: null,
+    unit: null,
+    rate: null,
+    amount: l.amount.neg(),
+    details: null,
+  }));
+}

@@ -1,0 +1,34 @@
+import { Inject, Injectable } from '@nestjs/common';
+import type { Executor } from '@hitchbook/db';
+import type { InvoiceDto } from '@hitchbook/shared/schemas/invoices';
+import { notFound } from '../../common/errors/app-error.js';
+import { APP_CONFIG, type AppConfig } from '../../core/config.js';
+import type { InvoiceScope } from '../customer-portal/invoice-scope.js';
+import { snapshotOf, toInvoiceDto } from './invoice.dto.js';
+import { InvoicesRepository } from './invoices.repository.js';
+
+/** Builds the full invoice as the caller may see it; anything outside the scope does not exist (404). */
+@Injectable()
+export class InvoiceViews {
+  constructor(
+    @Inject(APP_CONFIG) private readonly config: AppConfig,
+    @Inject(InvoicesRepository) private readonly repo: InvoicesRepository,
+  ) {}
+
+  async detailOrThrow(scope: InvoiceScope, id: string, executor?: Executor): Promise<InvoiceDto> {
+    const row = await this.repo.summary(scope, id, executor);
+    if (!row) throw notFound('No such invoice.');
+    const i = row.invoice;
+    const lines = await this.repo.lines(scope.operationId, id, executor);
+    const entryIds = [...new Set(lines.map((l) => l.workEntryId).filter((e): e is string => e !== null))];
+    const [entries, creditNotes, creditOf] = await Promise.all([
+      this.repo.entries(scope.operationId, entryIds, executor),
+      i.kind === 'invoice' ? this.repo.creditNotesOf(scope.operationId, id, executor) : Promise.resolve([]),
+      i.creditOfInvoiceId ? this.repo.find(scope.operationId, i.creditOfInvoiceId, executor) : Promise.resolve(undefined),
+    ]);
+    const frozen = i.issuerSnapshot !== null && i.partySnapshot !== null;
+    const issuer = frozen ? (i.issuerSnapshot as ReturnType<typeof snapshotOf>) : snapshotOf(await this.repo.operation(scope.operationId, executor));
+    const party = frozen ? (i.partySnapshot as ReturnType<typeof snapshotOf>) : snapshotOf((await this.repo.party(scope.operationId, i.partyId, executor))!);
+    return toInvoiceDto({ row, lines, entries, creditOf: creditOf ?? null, creditNotes, issuer, party, appUrl: this.config.appUrl });
+  }
+}

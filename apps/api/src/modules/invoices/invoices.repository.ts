@@ -1,0 +1,222 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { and, asc, count, desc, eq, gte, inArray, isNotNull, lte, sql, type SQL } from 'drizzle-orm';
+import {
+  fields,
+  invoiceLines,
+  invoices,
+  operations,
+  parties,
+  payments,
+  workEntries,
+  workTypes,
+  type Executor,
+  type Invoice,
+  type InvoiceLine,
+  type NewInvoiceLine,
+  type Operation,
+  type Party,
+  type Payment,
+} from '@hitchbook/db';
+import type { PgInsertValue, PgUpdateSetSource } from 'drizzle-orm/pg-core';
+import type { InvoiceEntryDto, InvoiceKind, InvoiceState } from '@hitchbook/shared/schemas/invoices';
+import { DB, type DbHandle } from '../../core/database.js';
+import type { InvoiceScope } from '../customer-portal/invoice-scope.js';
+
+export interface InvoiceSummaryRow {
+  invoice: Invoice;
+  partyName: string;
+  /** Issued credit notes against the invoice, positive. */
+  credited: string;
+  balance: string;
+  state: InvoiceState;
+}
+
+export interface InvoiceListFilter {
+  partyId?: string;
+  states?: InvoiceState[];
+  kind?: InvoiceKind;
+  from?: string;
+  to?: string;
+  sort: string;
+  limit: number;
+  offset: number;
+}
+
+/*
+ * The standing of an invoice, computed in one place from payments, credit notes and dates so the list
+ * filter and the detail can never disagree. Credit notes carry negative totals.
+ */
+const creditedSql = sql<string>`coalesce((select -sum(cn.total) from invoices cn
+  where cn.operation_id = ${invoices.operationId} and cn.credit_of_invoice_id = ${invoices.id} and cn.status = 'issued'), 0)::numeric(14,2)`;
+const balanceSql = sql<string>`(case when ${invoices.kind} = 'invoice' and ${invoices.status} = 'issued'
+  then ${invoices.total} - ${invoices.amountPaid} - ${creditedSql} else 0 end)::numeric(14,2)`;
+const stateSql = sql<InvoiceState>`case
+  when ${invoices.status} = 'draft' then 'draft'
+  when ${invoices.status} = 'void' then 'void'
+  when ${invoices.kind} = 'credit-note' then 'issued'
+  when ${balanceSql} <= 0 then 'paid'
+  when ${invoices.dueDate} < current_date then 'overdue'
+  when ${invoices.amountPaid} > 0 or ${creditedSql} > 0 then 'partly-paid'
+  else 'issued' end`;
+
+const summaryColumns = { invoice: invoices, partyName: parties.name, credited: creditedSql, balance: balanceSql, state: stateSql };
+
+const dateOf = sql`coalesce(${invoices.issueDate}, (${invoices.createdAt})::date)`;
+const SORTS: Record<string, SQL[]> = {
+  issueDate: [asc(dateOf)],
+  '-issueDate': [desc(dateOf)],
+  dueDate: [asc(invoices.dueDate)],
+  '-dueDate': [desc(invoices.dueDate)],
+  number: [asc(invoices.series), asc(invoices.number)],
+  '-number': [desc(invoices.series), desc(invoices.number)],
+  total: [asc(invoices.total)],
+  '-total': [desc(invoices.total)],
+  createdAt: [asc(invoices.createdAt)],
+  '-createdAt': [desc(invoices.createdAt)],
+};
+
+function scopeWhere(scope: InvoiceScope): SQL | undefined {
+  return and(
+    eq(invoices.operationId, scope.operationId),
+    scope.partyId ? eq(invoices.partyId, scope.partyId) : undefined,
+    scope.issuedOnly ? isNotNull(invoices.number) : undefined,
+  );
+}
+
+/** Invoice rows, lines and payments; reads take a scope (operation, and party for customers). */
+@Injectable()
+export class InvoicesRepository {
+  constructor(@Inject(DB) private readonly dbh: DbHandle) {}
+
+  async summaries(scope: InvoiceScope, filter: InvoiceListFilter): Promise<{ rows: InvoiceSummaryRow[]; total: number }> {
+    const where = and(
+      scopeWhere(scope),
+      filter.partyId ? eq(invoices.partyId, filter.partyId) : undefined,
+      filter.kind ? eq(invoices.kind, filter.kind) : undefined,
+      filter.states ? inArray(stateSql, filter.states) : undefined,
+      filter.from ? gte(dateOf, filter.from) : undefined,
+      filter.to ? lte(dateOf, filter.to) : undefined,
+    );
+    const from = () => this.dbh.db.select(summaryColumns).from(invoices).innerJoin(parties, and(eq(parties.operationId, invoices.operationId), eq(parties.id, invoices.partyId)));
+    const [rows, totals] = await Promise.all([
+      from()
+        .where(where)
+        .orderBy(...(SORTS[filter.sort] ?? SORTS['-createdAt']!), asc(invoices.id))
+        .limit(filter.limit)
+        .offset(filter.offset),
+      this.dbh.db.select({ n: count() }).from(invoices).where(where),
+    ]);
+    return { rows, total: totals[0]?.n ?? 0 };
+  }
+
+  async summary(scope: InvoiceScope, id: string, executor: Executor = this.dbh.db): Promise<InvoiceSummaryRow | undefined> {
+    const [row] = await executor
+      .select(summaryColumns)
+      .from(invoices)
+      .innerJoin(parties, and(eq(parties.operationId, invoices.operationId), eq(parties.id, invoices.partyId)))
+      .where(and(scopeWhere(scope), eq(invoices.id, id)));
+    return row;
+  }
+
+  /** Locks the invoice row for the rest of the transaction: writers to one invoice take turns. */
+  async lock(operationId: string, id: string, tx: Executor): Promise<Invoice | undefined> {
+    const [row] = await tx
+      .select()
+      .from(invoices)
+      .where(and(eq(invoices.operationId, operationId), eq(invoices.id, id)))
+      .for('update');
+    return row;
+  }
+
+  async lines(operationId: string, invoiceId: string, executor: Executor = this.dbh.db): Promise<InvoiceLine[]> {
+    return executor
+      .select()
+      .from(invoiceLines)
+      .where(and(eq(invoiceLines.operationId, operationId), eq(invoiceLines.invoiceId, invoiceId)))
+      .orderBy(asc(invoiceLines.position));
+  }
+
+  async creditNotesOf(operationId: string, invoiceId: string, executor: Executor = this.dbh.db): Promise<Invoice[]> {
+    return executor
+      .select()
+      .from(invoices)
+      .where(and(eq(invoices.operationId, operationId), eq(invoices.creditOfInvoiceId, invoiceId)))
+      .orderBy(asc(invoices.number));
+  }
+
+  async find(operationId: string, id: string, executor: Executor = this.dbh.db): Promise<Invoice | undefined> {
+    const [row] = await executor.select().from(invoices).where(and(eq(invoices.operationId, operationId), eq(invoices.id, id)));
+    return row;
+  }
+
+  /** What a customer may see of the billed work: where, when, what and how much, nothing about machines or costs. */
+  async entries(operationId: string, ids: string[], executor: Executor = this.dbh.db): Promise<InvoiceEntryDto[]> {
+    if (ids.length === 0) return [];
+    return executor
+      .select({
+        id: workEntries.id,
+        workDate: workEntries.workDate,
+        fieldName: fields.name,
+        workTypeName: workTypes.name,
+        hours: workEntries.hours,
+        acres: workEntries.acres,
+        miles: workEntries.miles,
+        loads: workEntries.loads,
+        eachCount: workEntries.eachCount,
+      })
+      .from(workEntries)
+      .innerJoin(fields, and(eq(fields.operationId, workEntries.operationId), eq(fields.id, workEntries.fieldId)))
+      .innerJoin(workTypes, and(eq(workTypes.operationId, workEntries.operationId), eq(workTypes.id, workEntries.workTypeId)))
+      .where(and(eq(workEntries.operationId, operationId), inArray(workEntries.id, ids)))
+      .orderBy(asc(workEntries.workDate), asc(fields.name));
+  }
+
+  async insert(values: PgInsertValue<typeof invoices>, tx: Executor): Promise<Invoice> {
+    const [row] = await tx.insert(invoices).values(values).returning();
+    return row!;
+  }
+
+  async update(operationId: string, id: string, values: PgUpdateSetSource<typeof invoices>, tx: Executor): Promise<Invoice> {
+    const [row] = await tx
+      .update(invoices)
+      .set({ ...values, updatedAt: new Date() })
+      .where(and(eq(invoices.operationId, operationId), eq(invoices.id, id)))
+      .returning();
+    return row!;
+  }
+
+  async remove(operationId: string, id: string, tx: Executor): Promise<void> {
+    await tx.delete(invoices).where(and(eq(invoices.operationId, operationId), eq(invoices.id, id)));
+  }
+
+  async insertLines(operationId: string, invoiceId: string, lines: Array<Omit<NewInvoiceLine, 'operationId' | 'invoiceId' | 'id'>>, tx: Executor): Promise<void> {
+    if (lines.length > 0) await tx.insert(invoiceLines).values(lines.map((l) => ({ ...l, operationId, invoiceId })));
+  }
+
+  async deleteLines(operationId: string, invoiceId: string, kinds: InvoiceLine['kind'][], tx: Executor): Promise<void> {
+    await tx.delete(invoiceLines).where(and(eq(invoiceLines.operationId, operationId), eq(invoiceLines.invoiceId, invoiceId), inArray(invoiceLines.kind, kinds)));
+  }
+
+  async party(operationId: string, partyId: string, executor: Executor = this.dbh.db): Promise<Party | undefined> {
+    const [row] = await executor.select().from(parties).where(and(eq(parties.operationId, operationId), eq(parties.id, partyId)));
+    return row;
+  }
+
+  async operation(operationId: string, executor: Executor = this.dbh.db): Promise<Operation> {
+    const [row] = await executor.select().from(operations).where(eq(operations.id, operationId));
+    return row!;
+  }
+
+  async payments(operationId: string, invoiceId: string, executor: Executor = this.dbh.db): Promise<Payment[]> {
+    return executor
+      .select()
+      .from(payments)
+      .where(and(eq(payments.operationId, operationId), eq(payments.invoiceId, invoiceId)))
+      .orderBy(asc(payments.receivedOn), asc(payments.createdAt));
+  }
+
+  async payment(operationId: string, paymentId: string, executor: Executor = this.dbh.db): Promise<Payment | undefined> {
+    const [row] = await executor.select().from(payments).where(and(eq(payments.operationId, operationId), eq(payments.id, paymentId)));
+    return row;
+  }
+}
