@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { singleLineText, uuidSchema } from './common.js';
-import { optionalLine, optionalNotes, scaledDecimal, whenValid, type RuleIssue } from './machines.js';
+import { optionalLine, optionalNotes, scaledDecimal, searchQuery, whenValid, type RuleIssue } from './machines.js';
 
 export const FIELD_KINDS = ['field', 'roadside'] as const;
 export type FieldKind = (typeof FIELD_KINDS)[number];
@@ -160,9 +160,9 @@ export const fieldListQuerySchema = z.strictObject({
   page: z.coerce.number().int().min(1).max(100000).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(25),
   sort: oneOf(FIELD_SORTS).default('name'),
-  q: z.string().trim().max(200).optional(),
+  q: searchQuery,
   kind: oneOf(FIELD_KINDS).optional(),
-  farmLabel: z.string().trim().max(80).optional(),
+  farmLabel: searchQuery,
   ownerPartyId: uuidSchema.optional(),
   /** Active fields unless asked otherwise. */
   archived: oneOf(['false', 'true', 'all']).default('false'),

@@ -64,6 +64,14 @@ export const optionalNotes = (max = 2000) =>
     .nullish()
     .transform((s) => (s === undefined ? undefined : s || null));
 
+/** Free-text search of a list; a NUL byte could never match and PostgreSQL refuses it in text. */
+export const searchQuery = z
+  .string()
+  .trim()
+  .max(200, { message: 'At most 200 characters' })
+  .refine((s) => !s.includes('\u0000'), { message: 'Contains a NUL character' })
+  .optional();
+
 const pageFields = {
   page: z.coerce.number().int().min(1).max(100000).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(25),
@@ -196,7 +204,7 @@ export const MACHINE_SORTS = ['name', '-name', 'year', '-year', 'classId', '-cla
 export const machineListQuerySchema = z.strictObject({
   ...pageFields,
   sort: oneOf(MACHINE_SORTS).default('name'),
-  q: z.string().trim().max(200).optional(),
+  q: searchQuery,
   status: oneOf(MACHINE_STATUSES).optional(),
   kind: oneOf(MACHINE_KINDS).optional(),
   classId: oneOf(MACHINE_CLASS_IDS).optional(),

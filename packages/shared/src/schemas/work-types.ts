@@ -3,6 +3,7 @@ import { CAUTION_KEYS, type CautionKey } from '../cautions.js';
 import { MACHINE_CLASS_IDS, type MachineClassId } from '../machine-classes.js';
 import { WORK_UNITS, type WorkUnit } from '../work-types.js';
 import { singleLineText } from './common.js';
+import { searchQuery } from './machines.js';
 
 function oneOf<const T extends readonly [string, ...string[]]>(values: T) {
   return z.enum(values, { error: (issue) => (issue.input === undefined ? 'Required' : `Use one of: ${values.join(', ')}`) });
@@ -49,7 +50,7 @@ export type WorkTypeUpdate = z.output<typeof workTypeUpdateSchema>;
 export const workTypeListQuerySchema = z.strictObject({
   page: z.coerce.number().int().min(1).max(100000).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(100),
-  q: z.string().trim().max(200).optional(),
+  q: searchQuery,
   archived: oneOf(['false', 'true', 'all']).default('false'),
 });
 export type WorkTypeListQuery = z.output<typeof workTypeListQuerySchema>;
