@@ -1,0 +1,242 @@
+import { randomUUID } from 'node:crypto';
+import { and, eq, inArray } from 'drizzle-orm';
+import { invoiceCounters, invoiceEntries, invoices, workEntries } from '@hitchbook/db';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createOperation, signInAll, type OperationFixture } from '../../test-support/fixtures.js';
+import { createTestApp, type TestApp } from '../../test-support/test-app.js';
+import { addEntry, addNeighbourSheet, createBillingWorld, type BillingWorld } from './billing-world.fixture.js';
+
+let t: TestApp;
+const bearer = (token: string) => ({ Authorization: `Bearer ${token}` });
+
+beforeAll(async () => {
+  t = await createTestApp();
+});
+afterAll(() => t.close());
+
+interface Outfit {
+  world: BillingWorld<OperationFixture>;
+  tokens: Awaited<ReturnType<typeof signInAll>>;
+  neighbour: string;
+}
+
+/** A fresh operation for each story, so its invoice numbers start at 1. */
+async function outfit(): Promise<Outfit> {
+  const world = await createBillingWorld(t.dbh.db, await createOperation(t.dbh.db));
+  await addNeighbourSheet(t.dbh.db, world);
+  return { world, tokens: await signInAll(t, world.fx), neighbour: world.fx.customers[0] };
+}
+
+function mowing(o: Outfit, workDate: string, acres = '10.000') {
+  return addEntry(t.dbh.db, o.world, { workDate, workTypeId: o.world.workTypes.mowing, fieldId: o.world.fields.creekBottom, billToPartyId: o.neighbour, hours: '2.00', acres });
+}
+
+async function draft(o: Outfit, from: string, to: string): Promise<{ id: string; version: number; total: string }> {
+  const res = await t.http().post('/api/invoices/drafts').set(bearer(o.tokens.owner)).send({ partyId: o.neighbour, from, to });
+  expect(res.status, JSON.stringify(res.body)).toBe(201);
+  return res.body;
+}
+
+const issue = (o: Outfit, id: string, key?: string) => {
+  const req = t.http().post(`/api/invoices/${id}/issue`).set(bearer(o.tokens.owner));
+  return (key ? req.set('Idempotency-Key', key) : req).send({});
+};
+
+async function issuedNumbers(operationId: string, series = 'INV'): Promise<number[]> {
+  const rows = await t.dbh.db.select({ number: invoices.number }).from(invoices).where(and(eq(invoices.operationId, operationId), eq(invoices.series, series)));
+  return rows.map((r) => r.number).filter((n): n is number => n !== null).sort((a, b) => a - b);
+}
+
+describe('issuing an invoice', () => {
+  it('numbers it, locks its entries, freezes snapshots and terms, and audits it', async () => {
+    const o = await outfit();
+    const entry = await mowing(o, '2025-05-06');
+    const d = await draft(o, '2025-05-01', '2025-05-31');
+    const res = await issue(o, d.id);
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ status: 'issued', state: 'issued', number: 1, numberLabel: 'INV-0001', termsDays: 21, total: '210.00', balance: '210.00', payUrl: `http://hitchbook.test/pay/${d.id}` });
+    const issueDate = new Date(`${res.body.issueDate}T00:00:00Z`);
+    expect(res.body.dueDate).toBe(new Date(issueDate.getTime() + 21 * 86_400_000).toISOString().slice(0, 10));
+    expect(res.body.issuer.name).toContain('Test outfit');
+
+    const [billed] = await t.dbh.db.select().from(invoiceEntries).where(eq(invoiceEntries.workEntryId, entry));
+    expect(billed?.invoiceId).toBe(d.id);
+    const [row] = await t.dbh.db.select({ state: workEntries.state }).from(workEntries).where(eq(workEntries.id, entry));
+    expect(row?.state).toBe('invoiced');
+    const audit = await t.dbh.db.query.auditLog.findMany({ where: (a, { and, eq }) => and(eq(a.entityId, d.id), eq(a.action, 'invoice.issued')) });
+    expect(audit).toHaveLength(1);
+
+    // Issued invoices are never edited.
+    expect((await t.http().patch(`/api/invoices/${d.id}`).set(bearer(o.tokens.owner)).send({ version: res.body.version, notes: 'changed' })).status).toBe(409);
+    expect((await issue(o, d.id)).status).toBe(409);
+    expect((await t.http().delete(`/api/invoices/${d.id}`).set(bearer(o.tokens.owner))).status).toBe(409);
+  });
+
+  it('keeps the issued lines when the rate sheet changes afterwards', async () => {
+    const o = await outfit();
+    await mowing(o, '2025-05-06');
+    const d = await draft(o, '2025-05-01', '2025-05-31');
+    expect((await issue(o, d.id)).status).toBe(200);
+    const [sheet] = await t.dbh.db.query.rateSheets.findMany({ where: (s, { eq }) => eq(s.operationId, o.world.fx.operationId) });
+    const edited = await t.http()
+      .patch(`/api/rate-sheets/${sheet!.id}`)
+      .set(bearer(o.tokens.owner))
+      .send({ travelFlat: '99', lines: [{ workTypeId: o.world.workTypes.mowing, unit: 'acre', rate: '40' }] });
+    expect(edited.status).toBe(200);
+    const after = await t.http().get(`/api/invoices/${d.id}`).set(bearer(o.tokens.owner));
+    expect(after.body.lines.map((l: { rate: string; amount: string }) => [l.rate, l.amount])).toEqual([
+      ['18.5000', '185.00'],
+      ['25.0000', '25.00'],
+    ]);
+    expect(after.body.total).toBe('210.00');
+  });
+
+  it('makes exactly one invoice from twenty concurrent issues over the same entries', async () => {
+    const o = await outfit();
+    const entries = [await mowing(o, '2025-06-02'), await mowing(o, '2025-06-03', '12.500')];
+    const drafts = [];
+    for (let i = 0; i < 20; i++) drafts.push(await draft(o, '2025-06-01', '2025-06-30'));
+    const results = await Promise.all(drafts.map((d) => issue(o, d.id)));
+
+    expect(results.filter((r) => r.status === 200)).toHaveLength(1);
+    const refused = results.filter((r) => r.status === 409);
+    expect(refused).toHaveLength(19);
+    for (const r of refused) {
+      expect(r.body.message).toContain('already billed');
+      expect(r.body.message).toContain('INV-0001');
+      expect(entries.some((e) => r.body.message.includes(e))).toBe(true);
+    }
+    const winner = results.find((r) => r.status === 200)!.body.id;
+    const locks = await t.dbh.db.select().from(invoiceEntries).where(inArray(invoiceEntries.workEntryId, entries));
+    expect(locks.map((l) => l.invoiceId)).toEqual([winner, winner]);
+    expect(await issuedNumbers(o.world.fx.operationId)).toEqual([1]);
+  });
+
+  it('issues one draft once when the same issue arrives twenty times at once', async () => {
+    const o = await outfit();
+    await mowing(o, '2025-06-02');
+    const d = await draft(o, '2025-06-01', '2025-06-30');
+    const results = await Promise.all(Array.from({ length: 20 }, () => issue(o, d.id)));
+    expect(results.filter((r) => r.status === 200)).toHaveLength(1);
+    expect(results.filter((r) => r.status === 409)).toHaveLength(19);
+    expect(await issuedNumbers(o.world.fx.operationId)).toEqual([1]);
+  });
+
+  it('keeps numbers gapless when an issue fails after taking its number', async () => {
+    const o = await outfit();
+    await mowing(o, '2025-07-01');
+    const first = await draft(o, '2025-07-01', '2025-07-01');
+    expect((await issue(o, first.id)).body.number).toBe(1);
+
+    // An entry sent back for correction after the draft was made: the issue takes number 2, then fails.
+    const reopened = await mowing(o, '2025-07-02');
+    const failing = await draft(o, '2025-07-02', '2025-07-02');
+    await t.dbh.db.update(workEntries).set({ state: 'submitted' }).where(eq(workEntries.id, reopened));
+    const refused = await issue(o, failing.id);
+    expect(refused.status).toBe(409);
+    expect(refused.body.message).toContain('no longer approved');
+
+    await mowing(o, '2025-07-03');
+    const third = await draft(o, '2025-07-03', '2025-07-03');
+    expect((await issue(o, third.id)).body.number).toBe(2);
+
+    expect(await issuedNumbers(o.world.fx.operationId)).toEqual([1, 2]);
+    const [counter] = await t.dbh.db.select().from(invoiceCounters).where(and(eq(invoiceCounters.operationId, o.world.fx.operationId), eq(invoiceCounters.series, 'INV')));
+    expect(counter?.nextNumber).toBe(3);
+    const [stillDraft] = await t.dbh.db.select().from(invoices).where(eq(invoices.id, failing.id));
+    expect(stillDraft).toMatchObject({ status: 'draft', number: null });
+    expect(await t.dbh.db.select().from(invoiceEntries).where(eq(invoiceEntries.invoiceId, failing.id))).toEqual([]);
+  });
+
+  it('answers a retry with the same Idempotency-Key with the same invoice, taking no new number', async () => {
+    const o = await outfit();
+    await mowing(o, '2025-08-01');
+    const d = await draft(o, '2025-08-01', '2025-08-31');
+    const key = `issue-${randomUUID()}`;
+    const first = await issue(o, d.id, key);
+    expect(first.status).toBe(200);
+    const retries = await Promise.all([issue(o, d.id, key), issue(o, d.id, key)]);
+    for (const retry of retries) {
+      expect(retry.status).toBe(200);
+      expect(retry.body).toMatchObject({ id: d.id, number: first.body.number, numberLabel: 'INV-0001' });
+    }
+    const [counter] = await t.dbh.db.select().from(invoiceCounters).where(and(eq(invoiceCounters.operationId, o.world.fx.operationId), eq(invoiceCounters.series, 'INV')));
+    expect(counter?.nextNumber).toBe(2);
+
+    await mowing(o, '2025-09-01');
+    const other = await draft(o, '2025-09-01', '2025-09-30');
+    const reused = await issue(o, other.id, key);
+    expect(reused.status).toBe(400);
+    expect(reused.body.issues[0].path).toBe('Idempotency-Key');
+    const malformed = await issue(o, other.id, 'no spaces allowed');
+    expect(malformed.status).toBe(400);
+    expect(malformed.body.issues[0].path).toBe('Idempotency-Key');
+    expect((await t.dbh.db.select().from(invoices).where(eq(invoices.id, other.id)))[0]?.status).toBe('draft');
+  });
+});
+
+describe('voiding and crediting', () => {
+  it('voids an unpaid invoice: it keeps its number and its entries can be billed again', async () => {
+    const o = await outfit();
+    const entry = await mowing(o, '2025-05-06');
+    const d = await draft(o, '2025-05-01', '2025-05-31');
+    await issue(o, d.id);
+
+    const voided = await t.http().post(`/api/invoices/${d.id}/void`).set(bearer(o.tokens.owner)).send({ reason: 'Billed to the wrong neighbour' });
+    expect(voided.status).toBe(200);
+    expect(voided.body).toMatchObject({ status: 'void', state: 'void', numberLabel: 'INV-0001', voidReason: 'Billed to the wrong neighbour', balance: '0.00', payUrl: null });
+    const [row] = await t.dbh.db.select({ state: workEntries.state }).from(workEntries).where(eq(workEntries.id, entry));
+    expect(row?.state).toBe('approved');
+    expect(await t.dbh.db.select().from(invoiceEntries).where(eq(invoiceEntries.workEntryId, entry))).toEqual([]);
+    expect((await t.http().post(`/api/invoices/${d.id}/void`).set(bearer(o.tokens.owner)).send({ reason: 'again' })).status).toBe(409);
+    expect((await t.http().post(`/api/invoices/${d.id}/void`).set(bearer(o.tokens.owner)).send({})).status).toBe(400);
+
+    const again = await draft(o, '2025-05-01', '2025-05-31');
+    const reissued = await issue(o, again.id);
+    expect(reissued.body.numberLabel).toBe('INV-0002');
+  });
+
+  it('refuses to void an invoice with a payment: that takes a credit note', async () => {
+    const o = await outfit();
+    await mowing(o, '2025-05-06');
+    const d = await draft(o, '2025-05-01', '2025-05-31');
+    await issue(o, d.id);
+    const paid = await t.http().post(`/api/invoices/${d.id}/payments`).set(bearer(o.tokens.owner)).send({ method: 'cheque', amount: '50', receivedOn: '2025-05-20', reference: 'Cheque 1042' });
+    expect(paid.status).toBe(201);
+    expect((await t.http().post(`/api/invoices/${d.id}/void`).set(bearer(o.tokens.owner)).send({ reason: 'Mistake' })).status).toBe(409);
+  });
+
+  it('credits a whole invoice line by line in its own series, and the two add up to zero', async () => {
+    const o = await outfit();
+    await mowing(o, '2025-05-06');
+    const d = await draft(o, '2025-05-01', '2025-05-31');
+    const original = (await issue(o, d.id)).body;
+
+    const note = await t.http().post(`/api/invoices/${d.id}/credit-notes`).set(bearer(o.tokens.owner)).send({ reason: 'Field was already mowed by the township' });
+    expect(note.status).toBe(201);
+    expect(note.body).toMatchObject({ kind: 'credit-note', status: 'issued', numberLabel: 'CN-0001', total: '-210.00', creditOf: { id: d.id, numberLabel: 'INV-0001' }, notes: 'Field was already mowed by the township', payUrl: null });
+    expect(note.body.lines.map((l: { amount: string }) => l.amount)).toEqual(original.lines.map((l: { amount: string }) => `-${l.amount}`));
+
+    const after = await t.http().get(`/api/invoices/${d.id}`).set(bearer(o.tokens.owner));
+    expect(after.body).toMatchObject({ amountCredited: '210.00', balance: '0.00', state: 'paid', creditNotes: [{ id: note.body.id, numberLabel: 'CN-0001', total: '-210.00', status: 'issued' }] });
+    expect(await issuedNumbers(o.world.fx.operationId, 'CN')).toEqual([1]);
+    expect((await t.http().post(`/api/invoices/${d.id}/credit-notes`).set(bearer(o.tokens.owner)).send({ reason: 'Twice' })).status).toBe(409);
+  });
+
+  it('credits part of an invoice and refuses to credit more than is left', async () => {
+    const o = await outfit();
+    await mowing(o, '2025-05-06');
+    const d = await draft(o, '2025-05-01', '2025-05-31');
+    await issue(o, d.id);
+    const part = await t.http().post(`/api/invoices/${d.id}/credit-notes`).set(bearer(o.tokens.owner)).send({ reason: 'Two acres were wet', lines: [{ description: 'Two acres not mowed', amount: '37.00' }] });
+    expect(part.status).toBe(201);
+    expect(part.body.lines).toEqual([expect.objectContaining({ kind: 'adjustment', description: 'Two acres not mowed', amount: '-37.00' })]);
+    const after = await t.http().get(`/api/invoices/${d.id}`).set(bearer(o.tokens.owner));
+    expect(after.body).toMatchObject({ balance: '173.00', state: 'partly-paid' });
+
+    const tooMuch = await t.http().post(`/api/invoices/${d.id}/credit-notes`).set(bearer(o.tokens.owner)).send({ reason: 'More', lines: [{ description: 'Everything', amount: '200' }] });
+    expect(tooMuch.status).toBe(400);
+    expect(tooMuch.body.issues[0]).toMatchObject({ path: 'lines', message: expect.stringContaining('173.00') });
+    expect(await issuedNumbers(o.world.fx.operationId, 'CN')).toEqual([1]);
+  });
+});
