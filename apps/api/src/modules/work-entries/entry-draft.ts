@@ -61,7 +61,8 @@ export type EntryColumns = Required<
 
 const dec = (v: string | null): Decimal | null => (v === null ? null : new Decimal(v));
 const date = (v: string | null | undefined): Date | null => (v ? new Date(v) : null);
-const text = (v: Decimal | null): string | null => (v === null ? null : v.toFixed());
+/** In the column's own scale, so a preview shows 12.000 acres as the table will. */
+const scaled = (v: Decimal | null, decimals: number): string | null => (v === null ? null : v.toFixed(decimals));
 
 export function draftFromCreate(input: WorkEntryCreateInput, operatorUserId: string): EntryDraft {
   return {
@@ -172,17 +173,17 @@ export function completeDraft(draft: EntryDraft, field: FieldDefaults, lastReadi
     workTypeId: draft.workTypeId,
     powerMachineId: draft.powerMachineId,
     implementMachineId: draft.implementMachineId,
-    meterStart: text(meterStart),
-    meterEnd: text(draft.meterEnd),
+    meterStart: scaled(meterStart, 1),
+    meterEnd: scaled(draft.meterEnd, 1),
     startedAt: draft.startedAt,
     endedAt: draft.endedAt,
     hours: safeHours.toFixed(2),
     operatorHours: (draft.operatorHours ?? safeHours).toFixed(2),
-    acres: text(draft.acres) ?? field.acres,
-    miles: text(draft.miles) ?? (field.kind === 'roadside' ? field.lengthMiles : null),
-    loads: text(draft.loads),
-    eachCount: text(draft.eachCount),
-    fuelGallons: text(draft.fuelGallons),
+    acres: scaled(draft.acres, 3) ?? field.acres,
+    miles: scaled(draft.miles, 3) ?? (field.kind === 'roadside' ? field.lengthMiles : null),
+    loads: scaled(draft.loads, 2),
+    eachCount: scaled(draft.eachCount, 2),
+    fuelGallons: scaled(draft.fuelGallons, 3),
     billToPartyId: draft.billToPartyId,
     notes: draft.notes,
   };

@@ -3,7 +3,7 @@ import { costEntries, meterReadings, workEntries } from '@hitchbook/db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createOperation, signInAll, type OperationFixture } from '../../test-support/fixtures.js';
 import { createTestApp, type TestApp } from '../../test-support/test-app.js';
-import { addMeterReading, createFleet, type FleetFixture } from './test-helpers.js';
+import { addMeterReading, createFleet } from './test-helpers.js';
 
 let t: TestApp;
 const bearer = (token: string) => ({ Authorization: `Bearer ${token}` });
