@@ -13,6 +13,7 @@ import { EstimatesModule } from './modules/estimates/estimates.module.js';
 import { HealthModule } from './modules/health/health.module.js';
 import { PartiesModule } from './modules/parties/parties.module.js';
 import { UsersModule } from './modules/users/users.module.js';
+import { PaymentsModule } from './modules/payments/payments.module.js';
 import { WorkEntriesModule } from './modules/work-entries/work-entries.module.js';
 import { InvoicesModule } from './modules/invoices/invoices.module.js';
 import { RateSheetsModule } from './modules/rate-sheets/rate-sheets.module.js';
@@ -26,7 +27,7 @@ export class AppModule implements OnApplicationShutdown {
   static forRoot(config: AppConfig): DynamicModule {
     return {
       module: AppModule,
-      imports: [CoreModule.forRoot(config), JobsModule, AuthModule, HealthModule, PartiesModule, UsersModule, DashboardModule, EstimatesModule, RateSheetsModule, UploadsModule, MachinesModule, FieldsModule, WorkTypesModule, WorkEntriesModule, ReportsModule, SquareUpsModule, InvoicesModule],
+      imports: [CoreModule.forRoot(config), JobsModule, AuthModule, HealthModule, PartiesModule, UsersModule, DashboardModule, EstimatesModule, RateSheetsModule, UploadsModule, MachinesModule, FieldsModule, WorkTypesModule, WorkEntriesModule, ReportsModule, SquareUpsModule, InvoicesModule, PaymentsModule],
     };
   }
 

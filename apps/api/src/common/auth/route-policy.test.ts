@@ -18,6 +18,7 @@ const PUBLIC_ROUTES = [
   'POST /api/auth/password-reset/confirm',
   'POST /api/auth/password-reset/request',
   'POST /api/auth/refresh',
+  'POST /api/payments/stripe-webhook',
 ];
 
 describe('route access declarations', () => {

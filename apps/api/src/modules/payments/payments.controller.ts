@@ -1,0 +1,35 @@
+import { Body, Controller, Headers, HttpCode, Inject, Param, Post, Req, type RawBodyRequest } from '@nestjs/common';
+import type { Request } from 'express';
+import { invoiceCheckoutSchema, type CheckoutDto } from '@hitchbook/shared/schemas/invoices';
+import type { Actor } from '../../common/auth/actor.js';
+import { CurrentActor, Public, Roles } from '../../common/auth/decorators.js';
+import { UuidPipe } from '../../common/validation/uuid.pipe.js';
+import { ZodPipe } from '../../common/validation/zod.pipe.js';
+import { CheckoutService } from './checkout.service.js';
+import { StripeWebhookService } from './stripe-webhook.service.js';
+
+@Controller('invoices')
+export class CheckoutController {
+  constructor(@Inject(CheckoutService) private readonly checkout: CheckoutService) {}
+
+  /** The invoice's own customer pays it; the owner may open the same page for them. The body takes no amount. */
+  @Roles('owner', 'customer')
+  @Post(':id/checkout')
+  @HttpCode(200)
+  open(@CurrentActor() actor: Actor, @Param('id', new UuidPipe()) id: string, @Body(new ZodPipe(invoiceCheckoutSchema)) _body: Record<string, never>): Promise<CheckoutDto> {
+    return this.checkout.open(actor, id);
+  }
+}
+
+@Controller('payments')
+export class StripeWebhookController {
+  constructor(@Inject(StripeWebhookService) private readonly webhooks: StripeWebhookService) {}
+
+  /** Anonymous by design: Stripe signs the body, and the signature is the only proof that counts. */
+  @Public()
+  @Post('stripe-webhook')
+  @HttpCode(200)
+  receive(@Req() req: RawBodyRequest<Request>, @Headers('stripe-signature') signature: string | undefined): Promise<{ received: true }> {
+    return this.webhooks.receive(req.rawBody, signature);
+  }
+}
