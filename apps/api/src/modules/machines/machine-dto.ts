@@ -1,8 +1,9 @@
 import type { Machine } from '@hitchbook/db';
 import { machineClassOrThrow, type MachineClassId } from '@hitchbook/shared/machine-classes';
-import type { MachineDto } from '@hitchbook/shared/schemas/machines';
+import type { MachineDto, MachineOwnerDto } from '@hitchbook/shared/schemas/machines';
 import type { ShareRow } from './shares.repository.js';
-import { toOwnerDto } from './shares.service.js';
+
+export const toOwnerDto = (row: ShareRow): MachineOwnerDto => ({ partyId: row.partyId, name: row.partyName, sharePct: row.sharePct });
 
 /** Prices are money: they are left out of the response altogether for roles that see no money. */
 export function toMachineDto(row: Machine, owners: readonly ShareRow[], withMoney: boolean): MachineDto {

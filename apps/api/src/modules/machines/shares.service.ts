@@ -2,7 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import type { Decimal } from 'decimal.js';
 import type { Executor } from '@hitchbook/db';
 import { Dec } from '@hitchbook/shared/decimal';
-import { FULL_OWNERSHIP_PCT, type MachineOwnerDto, type MachineSharesDto, type MachineSharesPut, type ShareSetDto } from '@hitchbook/shared/schemas/machines';
+import { FULL_OWNERSHIP_PCT, type MachineSharesDto, type MachineSharesPut, type ShareSetDto } from '@hitchbook/shared/schemas/machines';
 import type { Actor } from '../../common/auth/actor.js';
 import { AppError } from '../../common/errors/app-error.js';
 import { AuditService } from '../../core/audit.service.js';
@@ -10,10 +10,9 @@ import { DB, type DbHandle } from '../../core/database.js';
 import { PartiesRepository } from '../parties/parties.repository.js';
 import { todayIso } from './calendar.js';
 import { MachineAccess } from './machine-access.js';
+import { toOwnerDto } from './machine-dto.js';
 import { MachinesRepository } from './machines.repository.js';
 import { SharesRepository, type ShareRow } from './shares.repository.js';
-
-export const toOwnerDto = (row: ShareRow): MachineOwnerDto => ({ partyId: row.partyId, name: row.partyName, sharePct: row.sharePct });
 
 function groupSets(rows: readonly ShareRow[]): ShareSetDto[] {
   const sets: ShareSetDto[] = [];
