@@ -134,7 +134,8 @@ export class MachineYearRepository {
       select machine_id as "machineId", sum(amount)::text as amount, sum(gallons)::text as gallons
       from cost_entries
       where operation_id = ${operationId} and category = 'fuel' and gallons > 0 and incurred_on between ${bounds.from} and ${bounds.to}
-      group by rollup (machine_id)`);
+      group by rollup (machine_id)
+      having sum(gallons) > 0`);
     return result.rows;
   }
 

@@ -130,17 +130,28 @@ export class Ledger {
     return rateSheetId;
   }
 
-  /** An issued invoice (or one voided afterwards) billing the given entries, one work line each. */
+  /** An issued invoice (or one voided afterwards, or a credit note of another) billing the given entries, one line each. */
   async invoice(values: {
     partyId: string;
     number: number;
     issueDate: string;
     status?: 'issued' | 'void';
-    lines: ReadonlyArray<{ entryId?: string; workDate?: string; workTypeName?: string; kind?: 'work' | 'travel' | 'minimum'; quantity?: string; unit?: string; amount: string }>;
+    creditOf?: string;
+    lines: ReadonlyArray<{ entryId?: string; workDate?: string; workTypeName?: string; kind?: 'work' | 'travel' | 'minimum' | 'adjustment'; quantity?: string; unit?: string; amount: string }>;
   }): Promise<string> {
     const [invoice] = await this.db
       .insert(invoices)
-      .values({ operationId: this.operationId, partyId: values.partyId, number: values.number, status: values.status ?? 'issued', issueDate: values.issueDate, dueDate: values.issueDate })
+      .values({
+        operationId: this.operationId,
+        kind: values.creditOf ? 'credit-note' : 'invoice',
+        series: values.creditOf ? 'CN' : 'INV',
+        creditOfInvoiceId: values.creditOf ?? null,
+        partyId: values.partyId,
+        number: values.number,
+        status: values.status ?? 'issued',
+        issueDate: values.issueDate,
+        dueDate: values.issueDate,
+      })
       .returning({ id: invoices.id });
     const invoiceId = invoice!.id;
     await this.db.insert(invoiceLines).values(
@@ -159,7 +170,7 @@ export class Ledger {
       })),
     );
     const entryIds = values.lines.map((line) => line.entryId).filter((id): id is string => id !== undefined);
-    if (entryIds.length > 0 && (values.status ?? 'issued') === 'issued') {
+    if (entryIds.length > 0 && (values.status ?? 'issued') === 'issued' && !values.creditOf) {
       await this.db.insert(invoiceEntries).values(entryIds.map((workEntryId) => ({ operationId: this.operationId, workEntryId, invoiceId })));
     }
     return invoiceId;

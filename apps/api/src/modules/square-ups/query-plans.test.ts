@@ -1,0 +1,111 @@
+import { sql, type SQL } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Executor } from '@hitchbook/db';
+import { createOperation, type OperationFixture } from '../../test-support/fixtures.js';
+import { createTestApp, type TestApp } from '../../test-support/test-app.js';
+import { CustomIncomeRepository } from '../reports/custom-income.repository.js';
+import { MachineRatesService } from '../reports/machine-rates.service.js';
+import { yearBounds } from '../reports/machine-year.repository.js';
+import { Ledger } from './ledger.fixture.js';
+import { StatementRepository } from './statement.repository.js';
+
+// A year's square-up and machine rates must read that year through the indexes, so their time does
+// not grow with the other years kept. Ten years of entries in two operations give the planner real
+// choices; every query the features run is captured and its plan read back with EXPLAIN.
+
+const YEARS = 10;
+const ENTRIES_PER_OPERATION = 20_000;
+
+let t: TestApp;
+let op: OperationFixture;
+
+interface PlanNode {
+  'Node Type': string;
+  'Relation Name'?: string;
+  'Index Name'?: string;
+  Plans?: PlanNode[];
+}
+
+function nodes(plan: PlanNode): PlanNode[] {
+  return [plan, ...(plan.Plans ?? []).flatMap(nodes)];
+}
+
+/** An executor that records the statements it is given and answers none of them. */
+function recorder(): { executor: Executor; queries: SQL[] } {
+  const queries: SQL[] = [];
+  const executor = {
+    execute: async (query: SQL) => {
+      queries.push(query);
+      return { rows: [] };
+    },
+  } as unknown as Executor;
+  return { executor, queries };
+}
+
+async function workEntryScans(queries: readonly SQL[]): Promise<PlanNode[][]> {
+  const scans: PlanNode[][] = [];
+  for (const query of queries) {
+    const result = await t.dbh.db.execute<{ 'QUERY PLAN': Array<{ Plan: PlanNode }> }>(sql`explain (format json) ${query}`);
+    const plan = result.rows[0]!['QUERY PLAN'][0]!.Plan;
+    const onEntries = nodes(plan).filter((n) => n['Relation Name'] === 'work_entries');
+    if (onEntries.length > 0) scans.push(onEntries);
+  }
+  return scans;
+}
+
+async function fillHistory(fx: OperationFixture): Promise<void> {
+  const ledger = new Ledger(t.dbh.db, fx);
+  const [tractor, cart] = [await ledger.machine('History tractor'), await ledger.machine('History cart', { classId: 'grain-cart', kind: 'implement' })];
+  await ledger.shares(tractor, '2015-01-01', [[fx.households[0], '60'], [fx.households[1], '40']]);
+  await ledger.shares(cart, '2015-01-01', [[fx.households[1], '100']]);
+  const field = await ledger.field('History field', '80', fx.households[0]);
+  const workType = await ledger.workType('Grain cart');
+  await t.dbh.db.execute(sql`
+    insert into work_entries (operation_id, work_date, operator_user_id, field_id, power_machine_id, implement_machine_id, work_type_id, hours, acres, bill_to_party_id, state)
+    select ${fx.operationId}, date '2016-01-01' + (g % (365 * ${YEARS})), ${fx.members.operator.userId}, ${field}, ${tractor}, case when g % 2 = 0 then ${cart}::uuid end,
+           ${workType}, 2.5, 20, case when g % 3 = 0 then ${fx.customers[0]}::uuid when g % 2 = 0 then ${fx.households[0]}::uuid else ${fx.households[1]}::uuid end,
+           (array['draft', 'submitted', 'invoiced', 'approved', 'approved', 'approved', 'squared'])[1 + g % 7]
+    from generate_series(1, ${ENTRIES_PER_OPERATION}) as g`);
+  await t.dbh.db.execute(sql`
+    insert into cost_entries (operation_id, machine_id, category, incurred_on, amount, paid_by_party_id)
+    select ${fx.operationId}, ${tractor}, (array['fuel', 'repair', 'parts', 'insurance'])[1 + g % 4], date '2016-01-01' + (g % (365 * ${YEARS})), 120.50, ${fx.households[0]}
+    from generate_series(1, ${ENTRIES_PER_OPERATION / 4}) as g`);
+}
+
+beforeAll(async () => {
+  t = await createTestApp();
+  op = await createOperation(t.dbh.db, 'Ten years');
+  await fillHistory(op);
+  await fillHistory(await createOperation(t.dbh.db, 'Neighbouring outfit'));
+  await t.dbh.db.execute(sql`analyze work_entries`);
+  await t.dbh.db.execute(sql`analyze cost_entries`);
+}, 120_000);
+afterAll(() => t.close());
+
+describe('query plans of a year’s reports', () => {
+  it('reads work entries through an index in every square-up statement query', async () => {
+    const { executor, queries } = recorder();
+    const statements = t.app.get(StatementRepository);
+    const period = { operationId: op.operationId, from: '2025-01-01', to: '2025-12-31' };
+    const lines = { household: op.households[0], machine: null, fixedCostsBy: 'ownership' as const, limit: 100, offset: 0 };
+    await statements.sums(period, executor);
+    await statements.costLines(period, lines, executor);
+    await statements.workLines(period, lines, executor);
+    const scans = await workEntryScans(queries);
+    // The use sums, the pending count, and both drill-downs (the cost lines read use for the split basis).
+    expect(scans.length).toBeGreaterThanOrEqual(4);
+    for (const scan of scans) expect(scan.map((n) => n['Node Type'])).not.toContain('Seq Scan');
+  });
+
+  it('reads work entries through an index in every machine-rates and field-cost query', async () => {
+    const { executor, queries } = recorder();
+    await t.app.get(MachineRatesService).report(op.operationId, { year: 2025 }, executor);
+    const income = t.app.get(CustomIncomeRepository);
+    await income.fieldWork(op.operationId, yearBounds(2025), executor);
+    await income.machineFieldHours(op.operationId, yearBounds(2025), executor);
+    const scans = await workEntryScans(queries);
+    // Hours and acres, invoiced work, the neighbour sheet's rates, and the two field-cost queries.
+    expect(scans.length).toBeGreaterThanOrEqual(5);
+    for (const scan of scans) expect(scan.map((n) => n['Node Type'])).not.toContain('Seq Scan');
+  });
+});
