@@ -171,3 +171,28 @@ export interface CustomIncomeReportDto {
   unallocatedMachineCost: string;
   rules: string[];
 }
+
+// ---------------------------------------------------------------- dashboard (GET /api/dashboard)
+
+/** A figure on the signed-in home, ready to show: counts as digits, money formatted ("$1,234.50"). */
+export interface DashboardCardDto {
+  key: string;
+  label: string;
+  value: string;
+  hint?: string;
+}
+
+/** A small chart: points in order, values as decimal strings in the chart's unit. */
+export interface DashboardChartDto {
+  key: string;
+  label: string;
+  kind: 'bar' | 'line';
+  unit: 'hours' | 'usd';
+  points: Array<{ label: string; value: string }>;
+  hint?: string;
+}
+
+export interface DashboardDto {
+  cards: DashboardCardDto[];
+  charts: DashboardChartDto[];
+}

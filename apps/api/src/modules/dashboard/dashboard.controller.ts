@@ -1,8 +1,9 @@
 import { Controller, Get, Inject } from '@nestjs/common';
 import { ROLES } from '@hitchbook/shared/roles';
+import type { DashboardDto } from '@hitchbook/shared/schemas/reports';
 import type { Actor } from '../../common/auth/actor.js';
 import { CurrentActor, Roles } from '../../common/auth/decorators.js';
-import { DashboardService, type DashboardCard } from './dashboard.service.js';
+import { DashboardService } from './dashboard.service.js';
 
 @Controller('dashboard')
 export class DashboardController {
@@ -10,7 +11,7 @@ export class DashboardController {
 
   @Roles(...ROLES)
   @Get()
-  get(@CurrentActor() actor: Actor): Promise<{ cards: DashboardCard[] }> {
-    return this.dashboard.cards(actor);
+  get(@CurrentActor() actor: Actor): Promise<DashboardDto> {
+    return this.dashboard.dashboard(actor);
   }
 }
