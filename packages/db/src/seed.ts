@@ -2,6 +2,7 @@ import { fileURLToPath } from 'node:url';
 import bcrypt from 'bcrypt';
 import { sql } from 'drizzle-orm';
 import { createDb, type Database, type Transaction } from './client.js';
+import { seedBilling } from './demo/billing.js';
 import { seedFleet } from './demo/fleet.js';
 import { DEMO_PASSWORD, demoCustomers, demoHouseholds, demoOperation, demoUsers } from './demo/people.js';
 import { seedWork } from './demo/work.js';
@@ -20,7 +21,7 @@ export interface DemoContext {
 
 /** Later parts of the demo (fleet, work, billing, square-up); each runs once, in order, in the seed's transaction. */
 export type DemoPart = (tx: Transaction, ctx: DemoContext) => Promise<void>;
-const demoParts: DemoPart[] = [seedFleet, seedWork];
+const demoParts: DemoPart[] = [seedFleet, seedWork, seedBilling];
 
 /** Seeds the invented demo outfit once; a second run finds the owner and leaves everything alone. */
 export async function seedDemo(db: Database): Promise<'seeded' | 'already-seeded'> {
