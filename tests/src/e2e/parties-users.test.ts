@@ -41,7 +41,10 @@ describe('parties', () => {
       await dialog.waitFor({ state: 'hidden' });
       await page.getByLabel('Search by name').fill(name);
       await page.getByRole('cell', { name, exact: true }).waitFor();
-      expect(new URL(page.url()).searchParams.get('q')).toBe(name);
+      // The search is kept in the address, so the filtered list can be bookmarked.
+      await expect.poll(() => new URL(page.url()).searchParams.get('q')).toBe(name);
+      // Header row plus the one match, once the searched page has replaced the previous one.
+      await expect.poll(() => page.getByRole('row').count()).toBe(2);
       await screenshot(page, 'party-added-owner-desktop');
     });
   });
@@ -64,6 +67,9 @@ describe('users', () => {
       await signInAndWait(page, DEMO_SIGN_INS.owner);
       await page.goto(`${baseUrlOrThrow()}/users`);
       await page.getByRole('cell', { name: /partner@hitchbook\.test/ }).waitFor();
+      // The owner cannot change or remove their own sign-in, so cannot lock themself out.
+      expect(await page.getByRole('button', { name: /^Change role of / }).count()).toBe(5);
+      expect(await page.getByRole('button', { name: 'Change role of Ilse Quillback' }).count()).toBe(0);
       await screenshot(page, 'users-owner-desktop');
       await page.getByRole('button', { name: 'Invite someone' }).click();
       const dialog = page.getByRole('dialog');

@@ -63,6 +63,8 @@ export function ServerTable<T extends MRT_RowData>(props: ServerTableProps<T>) {
     positionActionsColumn: phone ? 'first' : 'last',
     renderRowActions: rowActions ? ({ row }) => rowActions(row.original) : undefined,
     enableGlobalFilter: Boolean(searchPlaceholder),
+    // The top toolbar holds only the search box; without one it would be an empty band.
+    enableTopToolbar: Boolean(searchPlaceholder),
     enableSorting: columns.some((c) => c.enableSorting !== false),
     positionGlobalFilter: 'right',
     initialState: { showGlobalFilter: Boolean(searchPlaceholder), density: 'md' },
@@ -79,8 +81,9 @@ export function ServerTable<T extends MRT_RowData>(props: ServerTableProps<T>) {
       else onParamsChange({ page: next.pageIndex + 1 });
     },
     onSortingChange: (updater) => onParamsChange({ sort: sortParamFrom(resolve(updater, sorting)) }),
-    onGlobalFilterChange: (value: string | undefined) => {
-      if ((value ?? '') !== (params.q ?? '')) onParamsChange({ q: value ?? undefined });
+    onGlobalFilterChange: (updater: MRT_Updater<string | undefined>) => {
+      const value = resolve(updater, params.q) ?? '';
+      if (value !== (params.q ?? '')) onParamsChange({ q: value || undefined });
     },
     mantineSearchTextInputProps: { placeholder: searchPlaceholder, 'aria-label': searchPlaceholder },
     mantinePaginationProps: { rowsPerPageOptions: PAGE_SIZES.map(String) },

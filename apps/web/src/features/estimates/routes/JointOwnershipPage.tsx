@@ -63,8 +63,8 @@ function PlanResult({ plan, settleBy }: { plan: JointOwnershipPlan; settleBy: 'u
         <Title order={2} size="h4" mb="sm">
           Shares and balances
         </Title>
-        <Table.ScrollContainer minWidth={420}>
-          <Table verticalSpacing="sm" fz="md">
+        <Table.ScrollContainer minWidth={320}>
+          <Table verticalSpacing="sm" horizontalSpacing="xs" fz="sm" data-testid="shares">
             <Table.Thead>
               <Table.Tr>
                 <Table.Th>Household</Table.Th>
@@ -82,10 +82,10 @@ function PlanResult({ plan, settleBy }: { plan: JointOwnershipPlan; settleBy: 'u
                     <Table.Td ta="right">{formatMoney(m.share)}</Table.Td>
                     <Table.Td ta="right">{formatMoney(m.paid)}</Table.Td>
                     <Table.Td ta="right">
-                      <Text span fw={700} c={balance.isNeg() ? 'clay.8' : 'harbor.8'}>
+                      <Text fw={700} size="sm" c={balance.isNeg() ? 'clay.8' : 'harbor.8'}>
                         {formatMoney(m.balance)}
-                      </Text>{' '}
-                      <Text span size="sm" c="dimmed">
+                      </Text>
+                      <Text size="xs" c="dimmed">
                         {balance.isZero() ? 'square' : balance.isNeg() ? 'owes' : 'is owed'}
                       </Text>
                     </Table.Td>
@@ -189,12 +189,12 @@ export function Component() {
                   {members.map((member, i) => (
                     <Card key={member.key} withBorder padding="sm" bg="slate.0">
                       <Group align="flex-start" gap="sm" wrap="nowrap">
-                        <SimpleGrid cols={{ base: 1, xs: 3 }} spacing="sm" style={{ flex: 1 }}>
+                        <SimpleGrid cols={{ base: 1, xs: 3 }} spacing="sm" style={{ flex: 1, alignItems: 'end' }}>
                           <TextInput label="Name" {...form.getInputProps(`members.${i}.name`)} />
                           <DecimalInput label="Owns" unit="%" {...form.getInputProps(`members.${i}.ownershipPct`)} />
                           <DecimalInput
                             label="Use"
-                            unit="acres or h"
+                            description="Acres or hours"
                             {...form.getInputProps(`members.${i}.use`)}
                           />
                         </SimpleGrid>
