@@ -1,5 +1,5 @@
 import type { Decimal } from 'decimal.js';
-import type { CostCategory } from './actual-rate.js';
+import type { ActualRate, CostCategory } from './actual-rate.js';
 import {
   poolCosts,
   splitCostOrThrow,
@@ -12,6 +12,8 @@ import { Dec, fixed, parseDecimalOrThrow } from './decimal.js';
 import { toMoneyString } from './money.js';
 import type {
   FixedCostsBy,
+  SquareUpDto,
+  SquareUpStatementDto,
   StatementHouseholdDto,
   StatementMachineDto,
   StatementPoolDto,
@@ -79,6 +81,17 @@ export interface StatementInput {
   shareSets: readonly StatementShareSet[];
   costs: readonly StatementCostGroup[];
   uses: readonly StatementUseGroup[];
+}
+
+/** What the database sums for a period (see @hitchbook/db's square-up sums). */
+export interface StatementSums {
+  households: StatementHousehold[];
+  machines: Array<{ id: string; name: string }>;
+  shareSets: StatementShareSet[];
+  costs: StatementCostGroup[];
+  uses: StatementUseGroup[];
+  /** Draft and submitted entries dated in the period. */
+  pendingEntries: number;
 }
 
 export interface StatementFigures {
@@ -356,4 +369,38 @@ export function buildSquareUpStatementOrThrow(input: StatementInput): StatementF
 /** A warning the database side adds: work in the period that is not approved yet. */
 export function pendingEntriesWarning(count: number): StatementWarningDto {
   return { code: 'entries-pending', machineId: null, message: warningMessage({ code: 'entries-pending', entries: count, amount: new Dec(0), hours: new Dec(0), about: '' }, '') };
+}
+
+/** Use that no family sheet prices needs the machines' actual rates; most periods need none. */
+export function needsActualRates(sums: StatementSums): boolean {
+  return sums.uses.some((use) => use.ratePerHour === null);
+}
+
+/** The whole statement of a period from its sums and, where needed, the machines' actual rates for the year. */
+export function squareUpStatementOrThrow(
+  squareUp: SquareUpDto,
+  sums: StatementSums,
+  actualRates: ReadonlyMap<string, ActualRate>,
+  computedAt: string,
+): SquareUpStatementDto {
+  const figures = buildSquareUpStatementOrThrow({
+    fixedCostsBy: squareUp.fixedCostsBy,
+    households: sums.households,
+    machines: sums.machines.map((m) => {
+      const perHour = actualRates.get(m.id)?.perHour;
+      return { id: m.id, name: m.name, actualRatePerHour: perHour ? fixed(perHour.total, 4) : null };
+    }),
+    shareSets: sums.shareSets,
+    costs: sums.costs,
+    uses: sums.uses,
+  });
+  return {
+    squareUp,
+    frozen: false,
+    computedAt,
+    ...figures,
+    pendingEntries: sums.pendingEntries,
+    warnings: sums.pendingEntries > 0 ? [pendingEntriesWarning(sums.pendingEntries), ...figures.warnings] : figures.warnings,
+    rules: squareUpRules(squareUp.fixedCostsBy),
+  };
 }

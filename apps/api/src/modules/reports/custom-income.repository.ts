@@ -2,7 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import { sql } from 'drizzle-orm';
 import type { Executor } from '@hitchbook/db';
 import { DB, type DbHandle } from '../../core/database.js';
-import { COUNTED_STATES, machineUseRows, type YearBounds } from './machine-year.repository.js';
+import { COUNTED_STATES, machineUseRows, type YearBounds } from '@hitchbook/db/square-up-sums';
 
 export type IncomeByCustomer = {
   partyId: string;

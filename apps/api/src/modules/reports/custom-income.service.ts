@@ -5,7 +5,7 @@ import { allocateOrThrow, roundToCent, toMoneyString } from '@hitchbook/shared/m
 import type { CustomIncomeReportDto } from '@hitchbook/shared/schemas/reports';
 import { CustomIncomeRepository, type IncomeByLine } from './custom-income.repository.js';
 import { MachineRatesService } from './machine-rates.service.js';
-import { yearBounds } from './machine-year.repository.js';
+import { yearBounds } from '@hitchbook/db/square-up-sums';
 import { customIncomeCsv } from './report-exports.js';
 
 export const CUSTOM_INCOME_RULES = [

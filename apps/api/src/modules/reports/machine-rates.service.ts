@@ -1,7 +1,8 @@
-import { Inject, Injectable } from '@nestjs/common';
+import { Inject, Injectable, type StreamableFile } from '@nestjs/common';
 import type { Decimal } from 'decimal.js';
 import type { Executor } from '@hitchbook/db';
-import { actualMachineRateOrThrow, compareWithEstimate, COST_CATEGORIES, type ActualRate, type CategoryAmounts, type MachineCostEntry } from '@hitchbook/shared/actual-rate';
+import { actualMachineRates, costSumsAsEntries, yearBounds, type CostSums } from '@hitchbook/db/square-up-sums';
+import { actualMachineRateOrThrow, compareWithEstimate, COST_CATEGORIES, type ActualRate, type CategoryAmounts } from '@hitchbook/shared/actual-rate';
 import { breakEvenAcresOrThrow } from '@hitchbook/shared/break-even';
 import { Dec, fixed } from '@hitchbook/shared/decimal';
 import { ComputationError } from '@hitchbook/shared/errors';
@@ -20,10 +21,9 @@ import {
   type MachineRateRowDto,
   type MachineRatesReportDto,
 } from '@hitchbook/shared/schemas/reports';
-import type { StreamableFile } from '@nestjs/common';
 import { DB, type DbHandle } from '../../core/database.js';
 import { estimateForMachine, type MachineEstimateResult } from './machine-estimate.js';
-import { MachineYearRepository, yearBounds, type CostSums, type MachineRow } from './machine-year.repository.js';
+import { MachineYearRepository, type MachineRow } from './machine-year.repository.js';
 import { machineRatesCsv, machineRatesPdf } from './report-exports.js';
 
 export interface MachineRatesAssumptions {
@@ -61,10 +61,6 @@ function ratio(amount: string | Decimal, by: string | Decimal): Decimal | null {
 
 const money = (value: Decimal | null) => (value === null ? null : toMoneyString(value));
 
-function asEntries(costs: readonly CostSums[]): MachineCostEntry[] {
-  return costs.map((cost) => ({ category: cost.category, amount: cost.amount, year: cost.year, lifeYears: cost.lifeYears ?? undefined }));
-}
-
 interface MachineFigures {
   machine: MachineRow;
   hours: string;
@@ -81,7 +77,7 @@ export class MachineRatesService {
 
   private async figures(operationId: string, year: number, executor: Executor): Promise<MachineFigures[]> {
     const [machines, uses, costs] = await Promise.all([
-      this.repo.machines(operationId, null, executor),
+      this.repo.machines(operationId, executor),
       this.repo.useSums(operationId, yearBounds(year), executor),
       this.repo.costSums(operationId, year, executor),
     ]);
@@ -95,9 +91,8 @@ export class MachineRatesService {
   }
 
   /** Each machine's actual costs of the year by the engine's actual-rate method (per hour null without hours). */
-  async actualRates(operationId: string, year: number, executor: Executor = this.dbh.db): Promise<Map<string, ActualRate>> {
-    const rows = await this.figures(operationId, year, executor);
-    return new Map(rows.map((row) => [row.machine.id, actualMachineRateOrThrow({ year, hours: row.hours, entries: asEntries(row.costs) })]));
+  actualRates(operationId: string, year: number, executor: Executor = this.dbh.db): Promise<Map<string, ActualRate>> {
+    return actualMachineRates(executor, operationId, year);
   }
 
   async history(operationId: string): Promise<MachineHoursHistoryDto> {
@@ -139,7 +134,7 @@ export class MachineRatesService {
       const worked = new Dec(row.hours).gt(0) || row.costs.length > 0;
       if (!worked && machine.status !== 'active') continue;
       if (!(MACHINE_CLASS_IDS as readonly string[]).includes(machine.classId)) continue;
-      const actual = actualMachineRateOrThrow({ year, hours: row.hours, acres: new Dec(row.acres).gt(0) ? row.acres : null, entries: asEntries(row.costs) });
+      const actual = actualMachineRateOrThrow({ year, hours: row.hours, acres: new Dec(row.acres).gt(0) ? row.acres : null, entries: costSumsAsEntries(row.costs) });
       const estimate = estimateForMachine(machine, {
         year,
         yearHours: row.hours,

@@ -1,24 +1,20 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { sql, type SQL } from 'drizzle-orm';
+import { sql } from 'drizzle-orm';
 import type { Executor } from '@hitchbook/db';
-import type { CostCategory } from '@hitchbook/shared/actual-rate';
+import {
+  COUNTED_STATES,
+  machineCostSums,
+  machineUseRows,
+  machineUseSums,
+  yearBounds,
+  type CostSums,
+  type MachineUseSums,
+  type YearBounds,
+} from '@hitchbook/db/square-up-sums';
 import { DB, type DbHandle } from '../../core/database.js';
-import { uuidArray } from './sql-arrays.js';
 
 // A machine's year in sums: every query is scoped by the operation id and bounded by the year's
 // dates, so a year's figures read that year's rows through the date indexes and never the other years'.
-
-/** Entries whose hours are settled: approved, billed on an invoice or squared up between households. */
-export const COUNTED_STATES = sql`('approved', 'invoiced', 'squared')`;
-
-export interface YearBounds {
-  from: string;
-  to: string;
-}
-
-export function yearBounds(year: number): YearBounds {
-  return { from: `${year}-01-01`, to: `${year}-12-31` };
-}
 
 export type MachineRow = {
   id: string;
@@ -39,21 +35,6 @@ export type MachineRow = {
   repairFactor2: string | null;
 };
 
-export type MachineUseSums = {
-  machineId: string;
-  hours: string;
-  acres: string;
-};
-
-/** Costs summed by what the engine needs to spread them over years: improvements keep their year and life. */
-export type CostSums = {
-  machineId: string;
-  category: CostCategory;
-  year: number;
-  lifeYears: number | null;
-  amount: string;
-};
-
 export type FuelPriceSums = {
   /** null: every machine together. */
   machineId: string | null;
@@ -68,63 +49,28 @@ export type FamilySheet = {
   laborFactor: string;
 };
 
-/**
- * Each entry's hours count for its power unit and its implement alike; the lateral VALUES turns one
- * entry row into one row per machine without reading the table twice.
- */
-export function machineUseRows(operationId: string, bounds: YearBounds, states: SQL): SQL {
-  return sql`
-    select m.machine_id, we.id as work_entry_id, we.work_date, we.hours, we.acres, we.field_id, we.work_type_id
-    from work_entries we
-    cross join lateral (values (we.power_machine_id), (we.implement_machine_id)) as m(machine_id)
-    where we.operation_id = ${operationId}
-      and we.work_date between ${bounds.from} and ${bounds.to}
-      and we.state in ${states}
-      and m.machine_id is not null`;
-}
-
-export function machineUseSumsQuery(operationId: string, bounds: YearBounds): SQL {
-  return sql`
-    select u.machine_id as "machineId", sum(u.hours)::text as hours, coalesce(sum(u.acres), 0)::text as acres
-    from (${machineUseRows(operationId, bounds, COUNTED_STATES)}) u
-    group by u.machine_id`;
-}
-
 @Injectable()
 export class MachineYearRepository {
   constructor(@Inject(DB) private readonly dbh: DbHandle) {}
 
-  async machines(operationId: string, ids: readonly string[] | null = null, executor: Executor = this.dbh.db): Promise<MachineRow[]> {
+  async machines(operationId: string, executor: Executor = this.dbh.db): Promise<MachineRow[]> {
     const result = await executor.execute<MachineRow>(sql`
       select id, name, class_id as "classId", kind, status, year as "modelYear", pto_hp::text as "ptoHp", fuel_type as "fuelType",
              list_price::text as "listPrice", purchase_price::text as "purchasePrice", purchase_date::text as "purchaseDate",
              hours_at_purchase::text as "hoursAtPurchase", planned_years_owned as "plannedYearsOwned",
              planned_hours_per_year::text as "plannedHoursPerYear", repair_factor1::text as "repairFactor1", repair_factor2::text as "repairFactor2"
       from machines
-      where operation_id = ${operationId} ${ids === null ? sql`` : sql`and id = any(${uuidArray(ids)})`}
+      where operation_id = ${operationId}
       order by name, id`);
     return result.rows;
   }
 
   async useSums(operationId: string, bounds: YearBounds, executor: Executor = this.dbh.db): Promise<MachineUseSums[]> {
-    return (await executor.execute<MachineUseSums>(machineUseSumsQuery(operationId, bounds))).rows;
+    return machineUseSums(executor, operationId, bounds);
   }
 
-  /** The year's costs, plus improvements of earlier years whose life reaches into it. */
   async costSums(operationId: string, year: number, executor: Executor = this.dbh.db): Promise<CostSums[]> {
-    const bounds = yearBounds(year);
-    const result = await executor.execute<CostSums>(sql`
-      select machine_id as "machineId", category, ${year}::int as year, null::int as "lifeYears", sum(amount)::text as amount
-      from cost_entries
-      where operation_id = ${operationId} and category <> 'improvement' and incurred_on between ${bounds.from} and ${bounds.to}
-      group by machine_id, category
-      union all
-      select machine_id, category, extract(year from incurred_on)::int, improvement_life_years, sum(amount)::text
-      from cost_entries
-      where operation_id = ${operationId} and category = 'improvement' and incurred_on <= ${bounds.to}
-        and extract(year from incurred_on)::int + improvement_life_years > ${year}
-      group by machine_id, category, extract(year from incurred_on), improvement_life_years`);
-    return result.rows;
+    return machineCostSums(executor, operationId, year);
   }
 
   /** What fuel cost per gallon this year, from tickets that recorded gallons: per machine and for the fleet. */

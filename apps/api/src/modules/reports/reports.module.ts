@@ -10,7 +10,5 @@ import { SuggestedRatesService } from './suggested-rates.service.js';
 @Module({
   controllers: [ReportsController],
   providers: [MachineYearRepository, MachineRatesService, SuggestedRatesRepository, SuggestedRatesService, CustomIncomeRepository, CustomIncomeService],
-  /** The square-up prices use no rate sheet covers at the machine's actual cost per hour. */
-  exports: [MachineRatesService],
 })
 export class ReportsModule {}

@@ -5,7 +5,7 @@ import { createOperation, type OperationFixture } from '../../test-support/fixtu
 import { createTestApp, type TestApp } from '../../test-support/test-app.js';
 import { CustomIncomeRepository } from '../reports/custom-income.repository.js';
 import { MachineRatesService } from '../reports/machine-rates.service.js';
-import { yearBounds } from '../reports/machine-year.repository.js';
+import { statementSums, yearBounds } from '@hitchbook/db/square-up-sums';
 import { Ledger } from './ledger.fixture.js';
 import { StatementRepository } from './statement.repository.js';
 
@@ -88,7 +88,7 @@ describe('query plans of a year’s reports', () => {
     const statements = t.app.get(StatementRepository);
     const period = { operationId: op.operationId, from: '2025-01-01', to: '2025-12-31' };
     const lines = { household: op.households[0], machine: null, fixedCostsBy: 'ownership' as const, limit: 100, offset: 0 };
-    await statements.sums(period, executor);
+    await statementSums(executor, period);
     await statements.costLines(period, lines, executor);
     await statements.workLines(period, lines, executor);
     const scans = await workEntryScans(queries);

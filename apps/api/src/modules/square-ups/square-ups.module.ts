@@ -1,5 +1,4 @@
 import { Module } from '@nestjs/common';
-import { ReportsModule } from '../reports/reports.module.js';
 import { SquareUpPeriods } from './square-up-periods.js';
 import { SquareUpsController } from './square-ups.controller.js';
 import { SquareUpsRepository } from './square-ups.repository.js';
@@ -7,7 +6,6 @@ import { SquareUpsService } from './square-ups.service.js';
 import { StatementRepository } from './statement.repository.js';
 
 @Module({
-  imports: [ReportsModule],
   controllers: [SquareUpsController],
   providers: [SquareUpsRepository, StatementRepository, SquareUpsService, SquareUpPeriods],
   /** SquareUpPeriods: the closed-period guard for features that write costs and entries; the service: the dashboard's open balance. */

@@ -1,6 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { and, asc, count, desc, eq, gte, lte, sql } from 'drizzle-orm';
-import { squareUps, squareUpTransfers, workEntries, type Executor, type SquareUp, type SquareUpTransfer } from '@hitchbook/db';
+import { squareUps, squareUpTransfers, type Executor, type SquareUp, type SquareUpTransfer } from '@hitchbook/db';
 import type { SquareUpStatementDto, SquareUpStatus, TransferPaid } from '@hitchbook/shared/schemas/square-ups';
 import { DB, type DbHandle } from '../../core/database.js';
 
@@ -138,23 +138,5 @@ export class SquareUpsRepository {
       .where(and(eq(squareUpTransfers.operationId, operationId), eq(squareUpTransfers.id, transferId)))
       .returning();
     return row!;
-  }
-
-  /** Family work of the period becomes 'squared': billed to a household and approved, so never to be invoiced. */
-  async squareFamilyWork(operationId: string, from: string, to: string, executor: Executor): Promise<number> {
-    const rows = await executor
-      .update(workEntries)
-      .set({ state: 'squared', version: sql`${workEntries.version} + 1` })
-      .where(
-        and(
-          eq(workEntries.operationId, operationId),
-          eq(workEntries.state, 'approved'),
-          gte(workEntries.workDate, from),
-          lte(workEntries.workDate, to),
-          sql`exists (select 1 from parties p where p.operation_id = work_entries.operation_id and p.id = work_entries.bill_to_party_id and p.kind = 'household')`,
-        ),
-      )
-      .returning({ id: workEntries.id });
-    return rows.length;
   }
 }

@@ -1,6 +1,6 @@
 import { Inject, Injectable, type StreamableFile } from '@nestjs/common';
 import type { Executor, SquareUp, SquareUpTransfer } from '@hitchbook/db';
-import { fixed } from '@hitchbook/shared/decimal';
+import { actualMachineRates, squareFamilyWork, statementSums, type PeriodScope } from '@hitchbook/db/square-up-sums';
 import type { Page } from '@hitchbook/shared/schemas/common';
 import type {
   SquareUpCreate,
@@ -14,12 +14,11 @@ import type {
   TransferDto,
   TransferPaid,
 } from '@hitchbook/shared/schemas/square-ups';
-import { buildSquareUpStatementOrThrow, pendingEntriesWarning, squareUpRules } from '@hitchbook/shared/square-up';
+import { needsActualRates, squareUpStatementOrThrow } from '@hitchbook/shared/square-up';
 import type { Actor } from '../../common/auth/actor.js';
 import { conflict, invalid, notFound } from '../../common/errors/app-error.js';
 import { AuditService } from '../../core/audit.service.js';
 import { DB, type DbHandle } from '../../core/database.js';
-import { MachineRatesService } from '../reports/machine-rates.service.js';
 import { statementCsv, statementPdf } from './statement-exports.js';
 import { StatementRepository } from './statement.repository.js';
 import { SquareUpsRepository } from './square-ups.repository.js';
@@ -52,6 +51,10 @@ function transferDto(row: SquareUpTransfer, names: ReadonlyMap<string, string>):
   };
 }
 
+function scopeOf(period: SquareUp): PeriodScope {
+  return { operationId: period.operationId, from: period.periodFrom, to: period.periodTo };
+}
+
 /** Today as the server's calendar sees it, tolerant by a day of the caller being a time zone ahead. */
 function latestAcceptableDay(): string {
   return new Date(Date.now() + 24 * 60 * 60 * 1000).toISOString().slice(0, 10);
@@ -63,7 +66,6 @@ export class SquareUpsService {
     @Inject(DB) private readonly dbh: DbHandle,
     @Inject(SquareUpsRepository) private readonly repo: SquareUpsRepository,
     @Inject(StatementRepository) private readonly statements: StatementRepository,
-    @Inject(MachineRatesService) private readonly rates: MachineRatesService,
     @Inject(AuditService) private readonly audit: AuditService,
   ) {}
 
@@ -106,37 +108,15 @@ export class SquareUpsService {
 
   /** The statement as the rows stand now: sums from SQL, split and settled by the engine. */
   async compute(period: SquareUp, executor: Executor = this.dbh.db): Promise<SquareUpStatementDto> {
-    const sums = await this.statements.sums({ operationId: period.operationId, from: period.periodFrom, to: period.periodTo }, executor);
-    // Only use that no family sheet prices needs the machines' actual rates, so most statements skip that read.
-    const actual = sums.uses.some((use) => use.ratePerHour === null)
-      ? await this.rates.actualRates(period.operationId, Number(period.periodTo.slice(0, 4)), executor)
-      : new Map();
-    const figures = buildSquareUpStatementOrThrow({
-      fixedCostsBy: period.fixedCostsBy,
-      households: sums.households,
-      machines: sums.machines.map((m) => {
-        const perHour = actual.get(m.id)?.perHour;
-        return { id: m.id, name: m.name, actualRatePerHour: perHour ? fixed(perHour.total, 4) : null };
-      }),
-      shareSets: sums.shareSets,
-      costs: sums.costs,
-      uses: sums.uses,
-    });
-    return {
-      squareUp: toDto(period),
-      frozen: false,
-      computedAt: new Date().toISOString(),
-      ...figures,
-      pendingEntries: sums.pendingEntries,
-      warnings: sums.pendingEntries > 0 ? [pendingEntriesWarning(sums.pendingEntries), ...figures.warnings] : figures.warnings,
-      rules: squareUpRules(period.fixedCostsBy),
-    };
+    const sums = await statementSums(executor, scopeOf(period));
+    const actual = needsActualRates(sums) ? await actualMachineRates(executor, period.operationId, Number(period.periodTo.slice(0, 4))) : new Map();
+    return squareUpStatementOrThrow(toDto(period), sums, actual, new Date().toISOString());
   }
 
   /** The rows behind the statement's figures: cost entries (with their improvement slices) or machine use of work entries. */
   async lines(actor: Actor, id: string, query: StatementLinesQuery): Promise<StatementLinesDto> {
     const period = await this.periodOrThrow(actor.operationId, id);
-    const scope = { operationId: actor.operationId, from: period.periodFrom, to: period.periodTo };
+    const scope = scopeOf(period);
     const filter = {
       household: query.household ?? null,
       machine: query.machine ?? null,
@@ -172,7 +152,7 @@ export class SquareUpsService {
         fresh.transfers.map((t) => ({ position: t.position, fromPartyId: t.fromHouseholdId, toPartyId: t.toHouseholdId, amount: t.amount })),
         tx,
       );
-      const squared = await this.repo.squareFamilyWork(actor.operationId, period.periodFrom, period.periodTo, tx);
+      const squared = await squareFamilyWork(tx, scopeOf(period));
       const names = new Map(fresh.households.map((h) => [h.householdId, h.name]));
       const closedAt = new Date(fresh.computedAt);
       const frozen: SquareUpStatementDto = {
