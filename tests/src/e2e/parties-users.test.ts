@@ -30,6 +30,7 @@ describe('parties', () => {
       await page.getByRole('button', { name: 'Add party' }).click();
       const dialog = page.getByRole('dialog');
       await dialog.getByText('Customer', { exact: true }).click();
+      expect(await dialog.getByRole('textbox', { name: 'Relationship' }).inputValue()).toBe('Neighbour');
       await dialog.getByLabel('Name', { exact: true }).fill(name);
       await dialog.getByLabel('E-mail', { exact: true }).fill('not-an-address');
       await dialog.getByRole('button', { name: 'Add party' }).click();

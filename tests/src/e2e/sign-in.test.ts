@@ -64,4 +64,26 @@ describe('sign-in refusal', () => {
       expect((await answer.textContent())?.trim()).toBe(forKnown);
     });
   });
+
+  it('explains an invitation link that is bad or used up instead of showing a form', async () => {
+    await inFreshPage(browser, PHONE, 'bad-invitation', async ({ page }) => {
+      await page.goto(`${baseUrlOrThrow()}/accept-invite?token=${'x'.repeat(32)}`);
+      await page.getByRole('heading', { name: "This invitation can't be used" }).waitFor();
+      expect(await page.getByLabel('Your name').count()).toBe(0);
+      await screenshot(page, 'invitation-unusable-phone');
+    });
+  });
+
+  it('refuses an expired reset link and offers a new one', async () => {
+    await inFreshPage(browser, DESKTOP, 'bad-reset', async ({ page }) => {
+      await page.goto(`${baseUrlOrThrow()}/reset-password?token=${'y'.repeat(32)}`);
+      await page.getByLabel('New password', { exact: true }).fill('a fresh long phrase');
+      await page.getByLabel('New password, again', { exact: true }).fill('a fresh long phrase');
+      await page.getByRole('button', { name: 'Set the new password' }).click();
+      await page.getByTestId('form-error').waitFor();
+      await page.getByRole('link', { name: 'Send me a new reset link' }).waitFor();
+      expect(await page.getByRole('heading', { name: 'Password changed' }).count()).toBe(0);
+      await screenshot(page, 'reset-link-refused-desktop');
+    });
+  });
 });

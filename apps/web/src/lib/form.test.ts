@@ -16,15 +16,23 @@ describe('placing server issues on a form', () => {
     });
   });
 
-  it('adds issues no field can show to the banner', () => {
+  it('shows only the issues no field can show when no field is marked', () => {
     const error = new ApiError(400, 'Invalid request.', [
       { path: '', message: 'Nothing to change.' },
       { path: 'token', message: 'Too short.' },
     ]);
     expect(placeServerIssues(values, error)).toEqual({
       fieldErrors: {},
-      banner: 'Invalid request. Nothing to change. Too short.',
+      banner: 'Nothing to change. Too short.',
     });
+  });
+
+  it('keeps the general message beside an unplaceable issue when a field is marked too', () => {
+    const error = new ApiError(400, 'Some fields need attention.', [
+      { path: 'listPrice', message: 'Required' },
+      { path: 'token', message: 'Expired.' },
+    ]);
+    expect(placeServerIssues(values, error).banner).toBe('Some fields need attention. Expired.');
   });
 
   it('maps request paths to field paths when the form is shaped differently', () => {

@@ -30,7 +30,7 @@ function remapErrors<Values>(errors: FormErrors, issuePath: IssuePathMap<Values>
 
 export interface PlacedIssues {
   fieldErrors: FormErrors;
-  /** The server's message plus every issue that no field on this form can show. */
+  /** The server's message (when some field is marked) plus every issue no field on this form can show. */
   banner: string;
 }
 
@@ -48,7 +48,9 @@ export function placeServerIssues<Values>(
     if (path && hasPath(values, path)) fieldErrors[path] ??= issue.message;
     else unplaced.push(issue.message);
   }
-  return { fieldErrors, banner: [error.message, ...unplaced.filter((m) => m !== error.message)].join(' ') };
+  // When no field is marked, a general "check the fields" message would send the user hunting.
+  const lead = Object.keys(fieldErrors).length === 0 && unplaced.length > 0 ? [] : [error.message];
+  return { fieldErrors, banner: [...lead, ...unplaced.filter((m) => m !== error.message)].join(' ') };
 }
 
 interface ServerFormOptions<Values extends FormValues, Payload, Result> {

@@ -18,11 +18,16 @@ interface PartyFormValues {
   notes: string;
 }
 
+/** Households are usually family and customers usually neighbours; the owner can pick otherwise. */
+function usualRelationship(kind: PartyKind): Relationship {
+  return kind === 'household' ? 'family' : 'neighbour';
+}
+
 function valuesFrom(party: Party | null, kind: PartyKind): PartyFormValues {
   return {
     kind: party?.kind ?? kind,
     name: party?.name ?? '',
-    relationship: party?.relationship ?? (kind === 'household' ? 'family' : 'neighbour'),
+    relationship: party?.relationship ?? usualRelationship(kind),
     email: party?.email ?? '',
     phone: party?.phone ?? '',
     address: party?.address ?? '',
@@ -72,6 +77,13 @@ function PartyForm({ party, defaultKind, onDone }: PartyFormProps) {
             fullWidth
             data={(['household', 'customer'] as const).map((k) => ({ value: k, label: KIND_LABELS[k] }))}
             {...form.getInputProps('kind')}
+            onChange={(value) => {
+              const kind = value as PartyKind;
+              const { kind: before, relationship } = form.getValues();
+              form.setFieldValue('kind', kind);
+              // Follow the kind only while the relationship is still the usual one for the old kind.
+              if (relationship === usualRelationship(before)) form.setFieldValue('relationship', usualRelationship(kind));
+            }}
           />
           <Text size="xs" c="dimmed">
             A household is part of the family outfit and has a balance; a customer is billed.
