@@ -5,6 +5,7 @@ import { createDb, type Database, type Transaction } from './client.js';
 import { seedBilling } from './demo/billing.js';
 import { seedFleet } from './demo/fleet.js';
 import { DEMO_PASSWORD, demoCustomers, demoHouseholds, demoOperation, demoUsers } from './demo/people.js';
+import { seedSquareUp } from './demo/square-up.js';
 import { seedWork } from './demo/work.js';
 import { memberships, operations, parties, users } from './schema/index.js';
 
@@ -21,7 +22,7 @@ export interface DemoContext {
 
 /** Later parts of the demo (fleet, work, billing, square-up); each runs once, in order, in the seed's transaction. */
 export type DemoPart = (tx: Transaction, ctx: DemoContext) => Promise<void>;
-const demoParts: DemoPart[] = [seedFleet, seedWork, seedBilling];
+const demoParts: DemoPart[] = [seedFleet, seedWork, seedBilling, seedSquareUp];
 
 /** Seeds the invented demo outfit once; a second run finds the owner and leaves everything alone. */
 export async function seedDemo(db: Database): Promise<'seeded' | 'already-seeded'> {
