@@ -110,7 +110,7 @@ export function squareUpRules(fixedCostsBy: FixedCostsBy): string[] {
       ? 'Fixed costs (insurance, taxes, housing, interest, improvement slices) are split among the owners by the shares in force on the cost’s date.'
       : 'By agreement for this period, fixed costs are split like operating costs: by the owners’ hours on the machine.',
     'Operating costs (fuel, repair, parts, tires) are split among the owners by the hours each used the machine in the period; with no owner use they are split by shares.',
-    'A household’s use is approved or squared work billed to it, or else run on a field it owns; each entry’s hours count for its power unit and its implement.',
+    'A household’s use is approved or squared work billed to it; work billed outside the households counts for the household that owns the field, invoiced or not. Each entry’s hours count for its power unit and its implement.',
     'Use of a machine the household did not own that day is charged at the machine-hour rate of the family rate sheet in force on the work date (without one, at the machine’s actual cost per hour for the year) and credited to the owners by their shares.',
     'Balance = paid − share + use credited − use charged. Balances sum to zero and are settled with the fewest transfers, exact to the cent.',
   ];
@@ -145,11 +145,12 @@ class Warnings {
 
 function warningMessage(w: { code: StatementWarningCode; entries: number; amount: Decimal; hours: Decimal; about: string }, machine: string): string {
   const entries = `${w.entries} ${w.entries === 1 ? 'entry' : 'entries'}`;
+  const are = w.entries === 1 ? 'is' : 'are';
   switch (w.code) {
     case 'cost-without-payer':
-      return `${entries} of costs on ${machine} (${toMoneyString(w.amount)}) have no paying household and are left out; record who paid.`;
+      return `${entries} of costs on ${machine} (${toMoneyString(w.amount)}) ${w.entries === 1 ? 'has' : 'have'} no paying household and ${are} left out; record who paid.`;
     case 'cost-without-owners':
-      return `${entries} of costs on ${machine} (${toMoneyString(w.amount)}) are dated before the machine had owners and are left out.`;
+      return `${entries} of costs on ${machine} (${toMoneyString(w.amount)}) ${are} dated before the machine had owners and ${are} left out.`;
     case 'use-without-owners':
       return `${hoursString(w.hours)} h on ${machine} were worked on days it had no owners and are not charged.`;
     case 'use-without-rate':
@@ -157,7 +158,7 @@ function warningMessage(w: { code: StatementWarningCode; entries: number; amount
     case 'share-set-invalid':
       return `The shares of ${machine} from ${w.about} do not add up to 100 % among households; its costs and use under them are left out.`;
     case 'entries-pending':
-      return `${entries} dated in the period wait for approval and are not counted.`;
+      return `${entries} dated in the period ${w.entries === 1 ? 'waits' : 'wait'} for approval and ${are} not counted.`;
   }
 }
 
