@@ -93,6 +93,11 @@ describe('navigation by role', () => {
       await page.getByTestId('not-found').waitFor();
       expect(await page.getByRole('heading', { name: 'Page not found' }).isVisible()).toBe(true);
       await screenshot(page, 'not-found-partner-desktop');
+
+      // The Estimates area itself opens on its first page.
+      await page.goto(`${baseUrlOrThrow()}/estimates`);
+      await page.getByRole('heading', { name: 'Machine-hour rate' }).waitFor();
+      expect(new URL(page.url()).pathname).toBe('/estimates/machine-rate');
     });
   });
 });

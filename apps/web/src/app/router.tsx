@@ -1,4 +1,4 @@
-import { createBrowserRouter, redirect, type RouteObject } from 'react-router-dom';
+import { createBrowserRouter, Navigate, type RouteObject } from 'react-router-dom';
 import { FullPageLoader } from '../components/FullPageLoader';
 import { NotFound } from '../components/NotFound';
 import { restoreSessionOnce } from '../lib/auth';
@@ -60,7 +60,7 @@ export const routes: RouteObject[] = [
                 path: '/estimates',
                 loader: requireArea('estimates'),
                 children: [
-                  { index: true, loader: () => redirect(paths.estimates.machineRate()) },
+                  { index: true, element: <Navigate to={paths.estimates.machineRate()} replace /> },
                   {
                     path: paths.estimates.machineRate(),
                     lazy: () => import('../features/estimates/routes/MachineRatePage'),

@@ -6,23 +6,36 @@ const labelsFor = (role: (typeof ROLES)[number]) => areasFor(role).map((a) => a.
 
 describe('role areas', () => {
   it('gives the owner every area, in navigation order', () => {
-    expect(labelsFor('owner')).toEqual(['Dashboard', 'Estimates', 'Parties', 'Users', 'Account']);
+    expect(labelsFor('owner')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Estimates', 'Parties', 'Users', 'Account']);
   });
 
   it('gives a partner estimates and parties but not users', () => {
-    expect(labelsFor('partner')).toEqual(['Dashboard', 'Estimates', 'Parties', 'Account']);
+    expect(labelsFor('partner')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Estimates', 'Parties', 'Account']);
   });
 
   it('keeps money areas away from operators and customers', () => {
-    expect(labelsFor('operator')).toEqual(['Dashboard', 'Account']);
+    expect(labelsFor('operator')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Account']);
     expect(labelsFor('customer')).toEqual(['Dashboard', 'Account']);
   });
 
   it('lets the bookkeeper view parties and users without managing them', () => {
-    expect(labelsFor('bookkeeper')).toEqual(['Dashboard', 'Estimates', 'Parties', 'Users', 'Account']);
+    expect(labelsFor('bookkeeper')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Estimates', 'Parties', 'Users', 'Account']);
     expect(accessTo('bookkeeper', 'parties')).toBe('view');
     expect(accessTo('bookkeeper', 'users')).toBe('view');
     expect(accessTo('owner', 'users')).toBe('manage');
+  });
+
+  it('lets an operator log work but only look at machines and fields', () => {
+    expect(accessTo('operator', 'work')).toBe('manage');
+    expect(accessTo('operator', 'machines')).toBe('view');
+    expect(accessTo('operator', 'fields')).toBe('view');
+    expect(accessTo('bookkeeper', 'work')).toBe('view');
+  });
+
+  it('keeps customers out of work, machines and fields', () => {
+    expect(accessTo('customer', 'work')).toBeNull();
+    expect(accessTo('customer', 'machines')).toBeNull();
+    expect(accessTo('customer', 'fields')).toBeNull();
   });
 
   it('answers null for an area the role may not open', () => {

@@ -1,6 +1,9 @@
 import type { Role } from '@hitchbook/shared/roles';
 import {
   IconCalculator,
+  IconClipboardList,
+  IconMap2,
+  IconTractor,
   IconGauge,
   IconUserCircle,
   IconUsers,
@@ -35,6 +38,28 @@ const everyone = { owner: 'manage', partner: 'manage', operator: 'manage', bookk
  */
 export const AREAS = [
   { key: 'dashboard', label: 'Dashboard', href: paths.dashboard(), icon: IconGauge, access: everyone },
+  {
+    key: 'work',
+    label: 'Work',
+    href: paths.work.entries(),
+    icon: IconClipboardList,
+    // An operator manages only their own entries; the server scopes every read and write to them.
+    access: { owner: 'manage', partner: 'manage', operator: 'manage', bookkeeper: 'view' },
+  },
+  {
+    key: 'machines',
+    label: 'Machines',
+    href: paths.machines(),
+    icon: IconTractor,
+    access: { owner: 'manage', partner: 'manage', operator: 'view', bookkeeper: 'view' },
+  },
+  {
+    key: 'fields',
+    label: 'Fields',
+    href: paths.fields(),
+    icon: IconMap2,
+    access: { owner: 'manage', partner: 'manage', operator: 'view', bookkeeper: 'view' },
+  },
   {
     key: 'estimates',
     label: 'Estimates',

@@ -16,6 +16,25 @@ export type ListQuery = {
   q?: string;
 };
 
+export type MachineListQuery = ListQuery & { status?: string; kind?: string; classId?: string; ownerPartyId?: string };
+
+export type FieldListQuery = ListQuery & { kind?: string; farmLabel?: string; ownerPartyId?: string; archived?: string };
+
+/** The work-entries table's filters, as the API names them. */
+export type WorkEntryListQuery = {
+  page?: number;
+  pageSize?: number;
+  sort?: string;
+  dateFrom?: string;
+  dateTo?: string;
+  machineId?: string;
+  fieldId?: string;
+  operatorUserId?: string;
+  billToPartyId?: string;
+  workTypeId?: string;
+  state?: string;
+};
+
 /** Every in-app link is built here, so a route can move without hunting for hand-written URLs. */
 export const paths = {
   dashboard: () => '/',
@@ -26,6 +45,19 @@ export const paths = {
   account: () => '/account',
   parties: (query?: ListQuery & { kind?: 'household' | 'customer' }) => withQuery('/parties', query),
   users: (query?: ListQuery) => withQuery('/users', query),
+  machines: (query?: MachineListQuery) => withQuery('/machines', query),
+  newMachine: () => '/machines/new',
+  machine: (id: string) => `/machines/${id}`,
+  editMachine: (id: string) => `/machines/${id}/edit`,
+  fields: (query?: FieldListQuery) => withQuery('/fields', query),
+  newField: () => '/fields/new',
+  editField: (id: string) => `/fields/${id}/edit`,
+  work: {
+    entries: (query?: WorkEntryListQuery) => withQuery('/work', query),
+    log: () => '/work/log',
+    editEntry: (id: string) => `/work/${id}/edit`,
+    import: () => '/work/import',
+  },
   estimates: {
     machineRate: () => '/estimates/machine-rate',
     ownOrHire: () => '/estimates/own-or-hire',

@@ -13,7 +13,7 @@ import { passwordsMatch } from '../passwordForms';
 
 const EMPTY = { currentPassword: '', newPassword: '', confirmPassword: '' };
 
-function ChangePasswordCard() {
+function ChangePasswordCard({ email }: { email: string }) {
   const [changed, setChanged] = useState(false);
   const { form, onSubmit, formError, submitting } = useServerForm({
     schema: passwordChangeSchema,
@@ -43,6 +43,8 @@ function ChangePasswordCard() {
             </Alert>
           )}
           <FormErrorAlert message={formError} />
+          {/* Lets a password manager file the new password under the right sign-in. */}
+          <input type="text" name="username" autoComplete="username" value={email} readOnly hidden />
           <PasswordInput label="Current password" autoComplete="current-password" {...form.getInputProps('currentPassword')} />
           <NewPasswordFields form={form} passwordField="newPassword" />
           <Group>
@@ -87,7 +89,7 @@ export function Component() {
             </Stack>
           </Stack>
         </Card>
-        <ChangePasswordCard />
+        <ChangePasswordCard email={user.email} />
       </SimpleGrid>
     </>
   );
