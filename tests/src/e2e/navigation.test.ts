@@ -13,13 +13,14 @@ import {
 } from './browser.js';
 
 const ESTIMATES = ['Estimates', 'Machine-hour rate', 'Own or hire', 'Joint ownership planner'];
+const FIELD_WORK = ['Work', 'Machines', 'Fields'];
 
-// What each role is meant to see (product brief, roles and their navigation).
+// What each role is meant to see (product brief, roles and their navigation; apps/web/src/lib/areas.ts).
 const EXPECTED_NAVIGATION: Record<keyof typeof DEMO_SIGN_INS, string[]> = {
-  owner: ['Dashboard', ...ESTIMATES, 'Parties', 'Users', 'Account'],
-  partner: ['Dashboard', ...ESTIMATES, 'Parties', 'Account'],
-  operator: ['Dashboard', 'Account'],
-  bookkeeper: ['Dashboard', ...ESTIMATES, 'Parties', 'Users', 'Account'],
+  owner: ['Dashboard', ...FIELD_WORK, ...ESTIMATES, 'Parties', 'Users', 'Account'],
+  partner: ['Dashboard', ...FIELD_WORK, ...ESTIMATES, 'Parties', 'Account'],
+  operator: ['Dashboard', ...FIELD_WORK, 'Account'],
+  bookkeeper: ['Dashboard', ...FIELD_WORK, ...ESTIMATES, 'Parties', 'Users', 'Account'],
   customer: ['Dashboard', 'Account'],
   customer2: ['Dashboard', 'Account'],
 };

@@ -84,6 +84,29 @@ describe('users', () => {
     });
   });
 
+  it('lets the owner invite an operator, see the invitation waiting, and withdraw it', async () => {
+    await inFreshPage(browser, DESKTOP, 'invite-and-remove', async ({ page }) => {
+      const email = `hand-${Date.now()}@example.test`;
+      await signInAndWait(page, DEMO_SIGN_INS.owner);
+      await page.goto(`${baseUrlOrThrow()}/users`);
+      await page.getByRole('button', { name: 'Invite someone' }).click();
+      const dialog = page.getByRole('dialog');
+      await dialog.getByLabel('Name', { exact: true }).fill('Sorrel Tamsin');
+      await dialog.getByLabel('E-mail', { exact: true }).fill(email);
+      await dialog.getByRole('button', { name: 'Send invitation' }).click();
+      await dialog.waitFor({ state: 'hidden' });
+
+      const row = page.getByRole('row', { name: new RegExp(email.replace(/[.]/g, '\\.')) });
+      await row.waitFor();
+      expect(await row.textContent()).toContain('Invited');
+      await screenshot(page, 'user-invited-owner-desktop');
+
+      await row.getByRole('button', { name: 'Remove Sorrel Tamsin' }).click();
+      await page.getByRole('dialog').getByRole('button', { name: 'Remove' }).click();
+      await row.waitFor({ state: 'detached' });
+    });
+  });
+
   it('shows the bookkeeper the users without invite or change controls', async () => {
     await inFreshPage(browser, DESKTOP, 'users-bookkeeper', async ({ page }) => {
       await signInAndWait(page, DEMO_SIGN_INS.bookkeeper);

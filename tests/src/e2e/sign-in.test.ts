@@ -9,6 +9,7 @@ import {
   PHONE,
   screenshot,
   signIn,
+  signInAndWait,
 } from './browser.js';
 
 let browser: Browser;
@@ -84,6 +85,23 @@ describe('sign-in refusal', () => {
       await page.getByRole('link', { name: 'Send me a new reset link' }).waitFor();
       expect(await page.getByRole('heading', { name: 'Password changed' }).count()).toBe(0);
       await screenshot(page, 'reset-link-refused-desktop');
+    });
+  });
+
+  it('keeps the session across a reload without storing the token in the page, and ends it on sign-out', async () => {
+    await inFreshPage(browser, DESKTOP, 'session', async ({ page }) => {
+      await signInAndWait(page, DEMO_SIGN_INS.partner);
+      await page.reload();
+      await page.getByTestId('user-menu').waitFor();
+      const stored = await page.evaluate(() => JSON.stringify({ ...localStorage }) + JSON.stringify({ ...sessionStorage }));
+      expect(stored).not.toMatch(/eyJ/);
+
+      await page.getByTestId('user-menu').click();
+      await page.getByRole('menuitem', { name: 'Sign out' }).click();
+      await page.getByRole('button', { name: 'Sign in' }).waitFor();
+      await page.goto(`${baseUrlOrThrow()}/parties`);
+      await page.getByRole('button', { name: 'Sign in' }).waitFor();
+      expect(new URL(page.url()).pathname).toBe('/sign-in');
     });
   });
 });
