@@ -1,7 +1,7 @@
 import { existsSync } from 'node:fs';
 import { createInterface } from 'node:readline';
 import { startApi } from './api-server.mjs';
-import { info, warn } from './log.mjs';
+import { Interrupted, info, warn } from './log.mjs';
 import { describeExit, startService } from './proc.mjs';
 import { inRepo, repoRoot } from './paths.mjs';
 
@@ -35,7 +35,7 @@ export async function startWatchedApi(env) {
       api = await startApi(env);
       info('[api] restarted');
     } catch (error) {
-      warn(`[api] did not come back: ${error.message}; save a fix to try again`);
+      if (!stopping && !(error instanceof Interrupted)) warn(`[api] did not come back: ${error.message}; save a fix to try again`);
     }
   };
   createInterface({ input: compiler.child.stdout }).on('line', (line) => {
