@@ -15,6 +15,7 @@ import { AppError, invalid, notFound } from '../../common/errors/app-error.js';
 import { AuditService } from '../../core/audit.service.js';
 import { DB, type DbHandle } from '../../core/database.js';
 import { PartiesRepository } from '../parties/parties.repository.js';
+import { SquareUpPeriods } from '../square-ups/square-up-periods.js';
 import { UploadsService } from '../uploads/uploads.service.js';
 import { CostEntriesRepository, type CostEntryRow, type CostEntryValues } from './cost-entries.repository.js';
 import { MachineAccess } from './machine-access.js';
@@ -60,6 +61,7 @@ export class CostEntriesService {
     @Inject(UploadsService) private readonly uploads: UploadsService,
     @Inject(MachineAccess) private readonly access: MachineAccess,
     @Inject(AuditService) private readonly audit: AuditService,
+    @Inject(SquareUpPeriods) private readonly periods: SquareUpPeriods,
   ) {}
 
   async list(actor: Actor, machineId: string, query: CostEntryListQuery): Promise<CostEntryPage> {
@@ -79,6 +81,7 @@ export class CostEntriesService {
     const id = await this.write(async (tx) => {
       await this.access.machineOrThrow(actor, 'machine.change', machineId, tx);
       await this.referencesOrThrow(actor, input, tx);
+      await this.periods.assertPeriodOpenOrThrow(actor.operationId, input.incurredOn, tx);
       const row = await this.costs.insert(
         actor.operationId,
         machineId,
@@ -99,6 +102,9 @@ export class CostEntriesService {
       const issues = costEntryRuleIssues({ ...before, ...patch });
       if (issues.length > 0) throw new AppError('validation', 'Some fields need attention.', issues);
       await this.referencesOrThrow(actor, patch, tx);
+      // A cost may neither leave nor enter a closed square-up: both would change a frozen statement.
+      await this.periods.assertPeriodOpenOrThrow(actor.operationId, before.incurredOn, tx);
+      if (patch.incurredOn) await this.periods.assertPeriodOpenOrThrow(actor.operationId, patch.incurredOn, tx);
       const values = columnsOf(patch);
       await this.costs.update(actor.operationId, machineId, id, values, tx);
       await this.audit.record(this.audit.byActor(actor, 'cost-entry.updated', 'cost-entry', id, { before, after: values }), tx);
@@ -112,6 +118,7 @@ export class CostEntriesService {
       await this.access.machineOrThrow(actor, 'machine.change', machineId, tx);
       const before = await this.costs.find(actor.operationId, machineId, id, tx);
       if (!before) throw notFound('No such cost entry.');
+      await this.periods.assertPeriodOpenOrThrow(actor.operationId, before.incurredOn, tx);
       await this.costs.delete(actor.operationId, machineId, id, tx);
       await this.audit.record(this.audit.byActor(actor, 'cost-entry.deleted', 'cost-entry', id, { before }), tx);
       return id;

@@ -73,6 +73,26 @@ describe('cost entries', () => {
     expect(backwards.body.issues[0].path).toBe('to');
   });
 
+  it('refuses to add, move or delete a cost dated in a closed square-up period, with 409', async () => {
+    const id = await newMachine();
+    const inside = await add(id, { category: 'repair', incurredOn: '2024-03-10', amount: '410.00', paidByPartyId: hB() });
+    expect(inside.status).toBe(201);
+    const open = await add(id, { category: 'repair', incurredOn: '2024-09-10', amount: '90.00', paidByPartyId: hB() });
+    const period = await t.http().post('/api/square-ups').set(bearer(tokens.owner)).send({ name: 'Spring 2024', periodFrom: '2024-01-01', periodTo: '2024-06-30' });
+    expect(period.status).toBe(201);
+    expect((await t.http().post(`/api/square-ups/${period.body.id}/close`).set(bearer(tokens.owner))).status).toBe(200);
+
+    const late = await add(id, { category: 'repair', incurredOn: '2024-04-01', amount: '55.00', paidByPartyId: hB() });
+    expect(late.status).toBe(409);
+    expect(late.body.message).toContain('Spring 2024');
+    const costs = (machineId: string) => `/api/machines/${machineId}/costs`;
+    expect((await t.http().patch(`${costs(id)}/${inside.body.id}`).set(bearer(tokens.owner)).send({ amount: '1.00' })).status).toBe(409);
+    expect((await t.http().patch(`${costs(id)}/${open.body.id}`).set(bearer(tokens.owner)).send({ incurredOn: '2024-05-01' })).status).toBe(409);
+    expect((await t.http().delete(`${costs(id)}/${inside.body.id}`).set(bearer(tokens.owner))).status).toBe(409);
+    // After the period the books are open as before.
+    expect((await t.http().patch(`${costs(id)}/${open.body.id}`).set(bearer(tokens.owner)).send({ amount: '95.00' })).status).toBe(200);
+  });
+
   it('deletes a cost entry', async () => {
     const id = await newMachine();
     const cost = await add(id, { category: 'parts', incurredOn: '2025-03-03', amount: 42, paidByPartyId: hB() });

@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { PartiesModule } from '../parties/parties.module.js';
+import { SquareUpsModule } from '../square-ups/square-ups.module.js';
 import { UploadsModule } from '../uploads/uploads.module.js';
 import { CostEntriesController } from './cost-entries.controller.js';
 import { CostEntriesRepository } from './cost-entries.repository.js';
@@ -25,7 +26,7 @@ import { SharesService } from './shares.service.js';
  * (MachineSummaryService.estimatedRate).
  */
 @Module({
-  imports: [PartiesModule, UploadsModule],
+  imports: [PartiesModule, UploadsModule, SquareUpsModule],
   controllers: [MachinesController, MachineSharesController, MeterReadingsController, CostEntriesController],
   providers: [
     MachineAccess,
