@@ -47,6 +47,16 @@ export const routes: RouteObject[] = [
               { index: true, lazy: () => import('../features/dashboard/routes/DashboardPage') },
               { path: paths.account(), lazy: () => import('../features/auth/routes/AccountPage') },
               {
+                path: paths.machines(),
+                loader: requireArea('machines'),
+                children: [
+                  { index: true, lazy: () => import('../features/machines/routes/MachinesPage') },
+                  { path: paths.newMachine(), lazy: () => import('../features/machines/routes/MachineFormPage') },
+                  { path: paths.machine(':machineId'), lazy: () => import('../features/machines/routes/MachinePage') },
+                  { path: paths.editMachine(':machineId'), lazy: () => import('../features/machines/routes/MachineFormPage') },
+                ],
+              },
+              {
                 path: paths.parties(),
                 loader: requireArea('parties'),
                 lazy: () => import('../features/parties/routes/PartiesPage'),

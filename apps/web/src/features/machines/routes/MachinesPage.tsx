@@ -1,0 +1,132 @@
+import { Anchor, Badge, Button, Select, Stack, Text } from '@mantine/core';
+import { IconPlus } from '@tabler/icons-react';
+import type { MRT_ColumnDef } from 'mantine-react-table';
+import { Link } from 'react-router-dom';
+import { MACHINE_CLASSES, type MachineKind } from '@hitchbook/shared/machine-classes';
+import { MACHINE_KINDS, MACHINE_STATUSES, type MachineDto, type MachineStatus } from '@hitchbook/shared/schemas/machines';
+import { EmptyState } from '../../../components/EmptyState';
+import { PageHeader } from '../../../components/PageHeader';
+import { ServerTable } from '../../../components/ServerTable';
+import { accessTo } from '../../../lib/areas';
+import { useSessionUserOrThrow } from '../../../lib/auth';
+import { useListParams } from '../../../lib/listParams';
+import { paths } from '../../../lib/paths';
+import { useMachines } from '../api/listMachines';
+import { MachineClassSelect } from '../components/MachineClassSelect';
+import { MachineHours } from '../components/MachineHours';
+import { OwnersList } from '../components/OwnersList';
+import { KIND_LABELS, STATUS_COLORS, STATUS_LABELS } from '../labels';
+
+function oneOf<T extends string>(values: readonly T[], raw: string | null): T | undefined {
+  return values.find((v) => v === raw);
+}
+
+const CLASS_IDS = MACHINE_CLASSES.map((c) => c.id);
+
+const columns: MRT_ColumnDef<MachineDto>[] = [
+  {
+    accessorKey: 'name',
+    header: 'Name',
+    Cell: ({ row }) => (
+      <Anchor component={Link} to={paths.machine(row.original.id)} fw={700}>
+        {row.original.name}
+      </Anchor>
+    ),
+  },
+  {
+    accessorKey: 'classId',
+    header: 'Class and kind',
+    Cell: ({ row }) => (
+      <Stack gap={0}>
+        <Text size="sm">{row.original.classLabel}</Text>
+        <Text size="sm" c="dimmed">
+          {KIND_LABELS[row.original.kind]}
+        </Text>
+      </Stack>
+    ),
+  },
+  { id: 'owners', header: 'Owners', enableSorting: false, Cell: ({ row }) => <OwnersList owners={row.original.owners} /> },
+  {
+    accessorKey: 'status',
+    header: 'Status',
+    Cell: ({ row }) => (
+      <Badge variant="light" size="lg" color={STATUS_COLORS[row.original.status]}>
+        {STATUS_LABELS[row.original.status]}
+      </Badge>
+    ),
+  },
+  { id: 'hours', header: 'Hour meter', enableSorting: false, Cell: ({ row }) => <MachineHours machineId={row.original.id} /> },
+];
+
+export function Component() {
+  const user = useSessionUserOrThrow();
+  const canManage = accessTo(user.role, 'machines') === 'manage';
+  const { params, searchParams, update } = useListParams({ sort: 'name' });
+  const status = oneOf<MachineStatus>(MACHINE_STATUSES, searchParams.get('status'));
+  const kind = oneOf<MachineKind>(MACHINE_KINDS, searchParams.get('kind'));
+  const classId = oneOf(CLASS_IDS, searchParams.get('classId'));
+  const machines = useMachines({ ...params, status, kind, classId });
+  const filtered = Boolean(params.q || status || kind || classId);
+
+  const toolbar = (
+    <>
+      <Select
+        aria-label="Status"
+        placeholder="Any status"
+        clearable
+        w={170}
+        value={status ?? null}
+        onChange={(value) => update({ status: value ?? undefined })}
+        data={MACHINE_STATUSES.map((s) => ({ value: s, label: STATUS_LABELS[s] }))}
+      />
+      <Select
+        aria-label="Kind"
+        placeholder="Any kind"
+        clearable
+        w={190}
+        value={kind ?? null}
+        onChange={(value) => update({ kind: value ?? undefined })}
+        data={MACHINE_KINDS.map((k) => ({ value: k, label: KIND_LABELS[k] }))}
+      />
+      <MachineClassSelect
+        aria-label="Class"
+        placeholder="Any class"
+        clearable
+        allowDeselect
+        w={280}
+        value={classId ?? null}
+        onChange={(value) => update({ classId: value ?? undefined })}
+      />
+    </>
+  );
+
+  return (
+    <>
+      <PageHeader
+        title="Machines"
+        description="Power units, self-propelled machines and implements, with who owns what share."
+        actions={
+          canManage && (
+            <Button component={Link} to={paths.newMachine()} leftSection={<IconPlus size={20} />}>
+              Add machine
+            </Button>
+          )
+        }
+      />
+      <ServerTable
+        columns={columns}
+        query={machines}
+        params={params}
+        onParamsChange={update}
+        getRowId={(machine) => machine.id}
+        searchPlaceholder="Search by name, make or unit number"
+        toolbar={toolbar}
+        emptyState={
+          <EmptyState title={filtered ? 'No machines match' : 'No machines yet'}>
+            {filtered ? 'Try another name or clear the filters.' : canManage ? 'Add the tractors and implements the family shares.' : 'The owner has not added any yet.'}
+          </EmptyState>
+        }
+      />
+    </>
+  );
+}
