@@ -21,11 +21,10 @@ export class InvoiceViews {
     const i = row.invoice;
     const lines = await this.repo.lines(scope.operationId, id, executor);
     const entryIds = [...new Set(lines.map((l) => l.workEntryId).filter((e): e is string => e !== null))];
-    const [entries, creditNotes, creditOf] = await Promise.all([
-      this.repo.entries(scope.operationId, entryIds, executor),
-      i.kind === 'invoice' ? this.repo.creditNotesOf(scope.operationId, id, executor) : Promise.resolve([]),
-      i.creditOfInvoiceId ? this.repo.find(scope.operationId, i.creditOfInvoiceId, executor) : Promise.resolve(undefined),
-    ]);
+    // One after another: inside a transaction they share one connection.
+    const entries = await this.repo.entries(scope.operationId, entryIds, executor);
+    const creditNotes = i.kind === 'invoice' ? await this.repo.creditNotesOf(scope.operationId, id, executor) : [];
+    const creditOf = i.creditOfInvoiceId ? await this.repo.find(scope.operationId, i.creditOfInvoiceId, executor) : undefined;
     const frozen = i.issuerSnapshot !== null && i.partySnapshot !== null;
     const issuer = frozen ? (i.issuerSnapshot as ReturnType<typeof snapshotOf>) : snapshotOf(await this.repo.operation(scope.operationId, executor));
     const party = frozen ? (i.partySnapshot as ReturnType<typeof snapshotOf>) : snapshotOf((await this.repo.party(scope.operationId, i.partyId, executor))!);

@@ -145,20 +145,19 @@ export class RateSheetsRepository {
   private async withLines(operationId: string, rows: Array<{ sheet: RateSheet; partyName: string | null }>, executor: Executor): Promise<LoadedSheet[]> {
     if (rows.length === 0) return [];
     const ids = rows.map((r) => r.sheet.id);
-    const [lines, rates] = await Promise.all([
-      executor
-        .select({ line: rateSheetLines, workTypeName: workTypes.name })
-        .from(rateSheetLines)
-        .innerJoin(workTypes, and(eq(workTypes.operationId, rateSheetLines.operationId), eq(workTypes.id, rateSheetLines.workTypeId)))
-        .where(and(eq(rateSheetLines.operationId, operationId), inArray(rateSheetLines.rateSheetId, ids)))
-        .orderBy(asc(workTypes.name), asc(rateSheetLines.unit), asc(rateSheetLines.chargeType)),
-      executor
-        .select({ rate: machineRates, machineName: machines.name })
-        .from(machineRates)
-        .innerJoin(machines, and(eq(machines.operationId, machineRates.operationId), eq(machines.id, machineRates.machineId)))
-        .where(and(eq(machineRates.operationId, operationId), inArray(machineRates.rateSheetId, ids)))
-        .orderBy(asc(machines.name)),
-    ]);
+    // One after another: inside a transaction they share one connection.
+    const lines = await executor
+      .select({ line: rateSheetLines, workTypeName: workTypes.name })
+      .from(rateSheetLines)
+      .innerJoin(workTypes, and(eq(workTypes.operationId, rateSheetLines.operationId), eq(workTypes.id, rateSheetLines.workTypeId)))
+      .where(and(eq(rateSheetLines.operationId, operationId), inArray(rateSheetLines.rateSheetId, ids)))
+      .orderBy(asc(workTypes.name), asc(rateSheetLines.unit), asc(rateSheetLines.chargeType));
+    const rates = await executor
+      .select({ rate: machineRates, machineName: machines.name })
+      .from(machineRates)
+      .innerJoin(machines, and(eq(machines.operationId, machineRates.operationId), eq(machines.id, machineRates.machineId)))
+      .where(and(eq(machineRates.operationId, operationId), inArray(machineRates.rateSheetId, ids)))
+      .orderBy(asc(machines.name));
     return rows.map((r) => ({
       sheet: r.sheet,
       partyName: r.partyName,
