@@ -57,6 +57,15 @@ export const routes: RouteObject[] = [
                 ],
               },
               {
+                path: paths.fields(),
+                loader: requireArea('fields'),
+                children: [
+                  { index: true, lazy: () => import('../features/fields/routes/FieldsPage') },
+                  { path: paths.newField(), lazy: () => import('../features/fields/routes/FieldFormPage') },
+                  { path: paths.editField(':fieldId'), lazy: () => import('../features/fields/routes/FieldFormPage') },
+                ],
+              },
+              {
                 path: paths.parties(),
                 loader: requireArea('parties'),
                 lazy: () => import('../features/parties/routes/PartiesPage'),

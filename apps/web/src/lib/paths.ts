@@ -50,7 +50,7 @@ export const paths = {
   machine: (id: string) => `/machines/${id}`,
   editMachine: (id: string) => `/machines/${id}/edit`,
   fields: (query?: FieldListQuery) => withQuery('/fields', query),
-  newField: () => '/fields/new',
+  newField: (query?: { kind?: 'field' | 'roadside' }) => withQuery('/fields/new', query),
   editField: (id: string) => `/fields/${id}/edit`,
   work: {
     entries: (query?: WorkEntryListQuery) => withQuery('/work', query),
