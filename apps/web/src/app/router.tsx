@@ -47,6 +47,16 @@ export const routes: RouteObject[] = [
               { index: true, lazy: () => import('../features/dashboard/routes/DashboardPage') },
               { path: paths.account(), lazy: () => import('../features/auth/routes/AccountPage') },
               {
+                path: paths.work.entries(),
+                loader: requireArea('work'),
+                children: [
+                  { index: true, lazy: () => import('../features/work/routes/WorkEntriesPage') },
+                  { path: paths.work.log(), lazy: () => import('../features/work/routes/LogWorkPage') },
+                  { path: paths.work.import(), lazy: () => import('../features/work/routes/ImportPage') },
+                  { path: paths.work.editEntry(':entryId'), lazy: () => import('../features/work/routes/EditEntryPage') },
+                ],
+              },
+              {
                 path: paths.machines(),
                 loader: requireArea('machines'),
                 children: [

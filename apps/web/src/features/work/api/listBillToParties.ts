@@ -1,0 +1,24 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { Page } from '@hitchbook/shared/schemas/common';
+import { api } from '../../../lib/api';
+
+export interface BillToParty {
+  id: string;
+  name: string;
+  kind: 'household' | 'customer';
+}
+
+const EVERY_PARTY = { pageSize: 200, sort: 'name' } as const;
+
+/** Work is billed to a household of the outfit (squared up) or to a customer (invoiced). */
+export function listBillToParties(signal?: AbortSignal) {
+  return api.get<Page<BillToParty>>('/api/parties', { query: EVERY_PARTY, signal }).then((page) => page.items);
+}
+
+export function billToPartiesQueryOptions() {
+  return queryOptions({ queryKey: ['parties', 'list', EVERY_PARTY, 'options'], queryFn: ({ signal }) => listBillToParties(signal), staleTime: 60_000 });
+}
+
+export function useBillToParties() {
+  return useQuery(billToPartiesQueryOptions());
+}

@@ -1,0 +1,33 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { Role } from '@hitchbook/shared/roles';
+import type { Page } from '@hitchbook/shared/schemas/common';
+import { api } from '../../../lib/api';
+
+export interface Member {
+  userId: string;
+  name: string;
+  role: Role;
+  status: 'active' | 'invited';
+}
+
+/** The members list is open to the owner and the bookkeeper only; other roles never ask for it. */
+export const MEMBER_READERS: readonly Role[] = ['owner', 'bookkeeper'];
+
+const LOGGERS: readonly Role[] = ['owner', 'partner', 'operator'];
+
+export function listMembers(signal?: AbortSignal) {
+  return api.get<Page<Member>>('/api/users', { query: { pageSize: 200 }, signal }).then((page) => page.items);
+}
+
+export function membersQueryOptions() {
+  return queryOptions({ queryKey: ['users', 'list', { pageSize: 200 }, 'options'], queryFn: ({ signal }) => listMembers(signal), staleTime: 60_000 });
+}
+
+/** The people who can run a machine: owners, partners and operators who have signed in. */
+export function useOperators(role: Role) {
+  return useQuery({
+    ...membersQueryOptions(),
+    enabled: MEMBER_READERS.includes(role),
+    select: (members) => members.filter((m) => LOGGERS.includes(m.role) && m.status === 'active'),
+  });
+}

@@ -1,0 +1,61 @@
+import { useRef, useState } from 'react';
+import { Stack } from '@mantine/core';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { workEntryUpdateSchema, type WorkEntryWithWarnings } from '@hitchbook/shared/schemas/work-entries';
+import { FormErrorAlert } from '../../../components/FormErrorAlert';
+import { useServerForm } from '../../../lib/form';
+import { refreshAfterEntryChange } from '../api/saveWorkEntry';
+import { submitWorkEntry } from '../api/submitWorkEntry';
+import { updateWorkEntry, type WorkEntryChange } from '../api/updateWorkEntry';
+import { entryChangePayload, entryFormValues, entryIssuePath } from '../entryForm';
+import { EntryActions, type EntryIntent } from './EntryActions';
+import { EntryFields, type EntryOptions } from './EntryFields';
+
+interface EditEntryFormProps {
+  entry: WorkEntryWithWarnings;
+  operatorName: string;
+  options: EntryOptions;
+  onSaved: (entry: WorkEntryWithWarnings) => void;
+}
+
+/** Fixing a draft or a submitted entry; a draft can be sent on for approval in the same step. */
+export function EditEntryForm({ entry, operatorName, options, onSaved }: EditEntryFormProps) {
+  const queryClient = useQueryClient();
+  const intent = useRef<EntryIntent>('draft');
+  const [shownIntent, setShownIntent] = useState<EntryIntent>('draft');
+  const save = useMutation({
+    mutationFn: async (change: WorkEntryChange) => {
+      const saved = await updateWorkEntry(entry.id, change);
+      return intent.current === 'submitted' && saved.state === 'draft' ? submitWorkEntry(saved.id, saved.version) : saved;
+    },
+    onSuccess: () => refreshAfterEntryChange(queryClient),
+  });
+  const { form, onSubmit, formError, submitting } = useServerForm({
+    schema: workEntryUpdateSchema,
+    initialValues: entryFormValues(entry),
+    toPayload: (values) => entryChangePayload(values, entry.version),
+    mutation: save,
+    issuePath: entryIssuePath,
+    onSuccess: onSaved,
+  });
+  const rig = { powerMachineId: entry.powerMachineId, implementMachineId: entry.implementMachineId };
+
+  return (
+    <form onSubmit={onSubmit} noValidate>
+      <Stack gap="md">
+        <EntryFields form={form} options={options} operatorName={operatorName} lastUsed={rig} editing />
+        <FormErrorAlert message={formError} />
+        <EntryActions
+          submitting={submitting}
+          intent={shownIntent}
+          onIntent={(next) => {
+            intent.current = next;
+            setShownIntent(next);
+          }}
+          submitLabel={entry.state === 'draft' ? 'Save and submit' : null}
+          draftLabel="Save changes"
+        />
+      </Stack>
+    </form>
+  );
+}
