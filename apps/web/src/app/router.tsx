@@ -86,6 +86,15 @@ export const routes: RouteObject[] = [
                 lazy: () => import('../features/users/routes/UsersPage'),
               },
               {
+                path: paths.squareUps(),
+                loader: requireArea('squareUps'),
+                children: [
+                  { index: true, lazy: () => import('../features/square-ups/routes/SquareUpsPage') },
+                  { path: paths.squareUp(':squareUpId'), lazy: () => import('../features/square-ups/routes/StatementPage') },
+                ],
+              },
+              { path: paths.yearEnd(), loader: requireArea('yearEnd'), lazy: () => import('../features/reports/routes/YearEndPage') },
+              {
                 path: '/estimates',
                 loader: requireArea('estimates'),
                 children: [

@@ -6,11 +6,11 @@ const labelsFor = (role: (typeof ROLES)[number]) => areasFor(role).map((a) => a.
 
 describe('role areas', () => {
   it('gives the owner every area, in navigation order', () => {
-    expect(labelsFor('owner')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Estimates', 'Parties', 'Users', 'Account']);
+    expect(labelsFor('owner')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Square-up', 'Year-end', 'Estimates', 'Parties', 'Users', 'Account']);
   });
 
   it('gives a partner estimates and parties but not users', () => {
-    expect(labelsFor('partner')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Estimates', 'Parties', 'Account']);
+    expect(labelsFor('partner')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Square-up', 'Year-end', 'Estimates', 'Parties', 'Account']);
   });
 
   it('keeps money areas away from operators and customers', () => {
@@ -19,7 +19,7 @@ describe('role areas', () => {
   });
 
   it('lets the bookkeeper view parties and users without managing them', () => {
-    expect(labelsFor('bookkeeper')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Estimates', 'Parties', 'Users', 'Account']);
+    expect(labelsFor('bookkeeper')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Square-up', 'Year-end', 'Estimates', 'Parties', 'Users', 'Account']);
     expect(accessTo('bookkeeper', 'parties')).toBe('view');
     expect(accessTo('bookkeeper', 'users')).toBe('view');
     expect(accessTo('owner', 'users')).toBe('manage');
@@ -36,6 +36,22 @@ describe('role areas', () => {
     expect(accessTo('customer', 'work')).toBeNull();
     expect(accessTo('customer', 'machines')).toBeNull();
     expect(accessTo('customer', 'fields')).toBeNull();
+  });
+
+  it('lets owner and partner run square-ups, the bookkeeper only read them', () => {
+    expect(accessTo('owner', 'squareUps')).toBe('manage');
+    expect(accessTo('partner', 'squareUps')).toBe('manage');
+    expect(accessTo('bookkeeper', 'squareUps')).toBe('view');
+    expect(accessTo('operator', 'squareUps')).toBeNull();
+    expect(accessTo('customer', 'squareUps')).toBeNull();
+  });
+
+  it('shows year-end rates to the money roles and lets only the owner accept them', () => {
+    expect(accessTo('owner', 'yearEnd')).toBe('manage');
+    expect(accessTo('partner', 'yearEnd')).toBe('view');
+    expect(accessTo('bookkeeper', 'yearEnd')).toBe('view');
+    expect(accessTo('operator', 'yearEnd')).toBeNull();
+    expect(accessTo('customer', 'yearEnd')).toBeNull();
   });
 
   it('answers null for an area the role may not open', () => {

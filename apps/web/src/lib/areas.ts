@@ -1,8 +1,10 @@
 import type { Role } from '@hitchbook/shared/roles';
 import {
   IconCalculator,
+  IconChartBar,
   IconClipboardList,
   IconMap2,
+  IconScale,
   IconTractor,
   IconGauge,
   IconUserCircle,
@@ -59,6 +61,22 @@ export const AREAS = [
     href: paths.fields(),
     icon: IconMap2,
     access: { owner: 'manage', partner: 'manage', operator: 'view', bookkeeper: 'view' },
+  },
+  {
+    key: 'squareUps',
+    label: 'Square-up',
+    href: paths.squareUps(),
+    icon: IconScale,
+    // Owner and partner open, record and close periods; the bookkeeper reads and exports them.
+    access: { owner: 'manage', partner: 'manage', bookkeeper: 'view' },
+  },
+  {
+    key: 'yearEnd',
+    label: 'Year-end',
+    href: paths.yearEnd(),
+    icon: IconChartBar,
+    // Only the owner turns suggested rates into next year's family rate sheet.
+    access: { owner: 'manage', partner: 'view', bookkeeper: 'view' },
   },
   {
     key: 'estimates',

@@ -58,6 +58,9 @@ export const paths = {
     editEntry: (id: string) => `/work/${id}/edit`,
     import: () => '/work/import',
   },
+  squareUps: () => '/square-ups',
+  squareUp: (id: string) => `/square-ups/${id}`,
+  yearEnd: (query?: { year?: number }) => withQuery('/year-end', query),
   estimates: {
     machineRate: () => '/estimates/machine-rate',
     ownOrHire: () => '/estimates/own-or-hire',
