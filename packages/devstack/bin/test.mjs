@@ -47,6 +47,19 @@ async function clearMail(mailApiUrl) {
   if (res.status !== 204) warn(`could not clear the mail catcher between workspaces (${res.status})`);
 }
 
+/**
+ * The Stripe fake starts before the E2E API has a port, so it has nowhere to post its signed events
+ * until it is told; a browser test that pays by card needs them to reach this API.
+ */
+async function pointStripeWebhooksAt(fakesEnv, baseUrl) {
+  const res = await fetch(`${fakesEnv.STRIPE_FAKE_URL}/_fake/webhook-endpoint`, {
+    method: 'PUT',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ url: `${baseUrl}/api/payments/stripe-webhook`, secret: fakesEnv.STRIPE_WEBHOOK_SECRET }),
+  }).catch((error) => ({ ok: false, status: error.message }));
+  if (!res.ok) throw new DevstackError(`the Stripe fake did not take the E2E webhook endpoint (${res.status})`);
+}
+
 async function startE2eApi({ postgres, fakesEnv, uploadRoot }) {
   const port = await freePort();
   const logPath = join(resultsDir, 'e2e-api.log');
@@ -62,8 +75,15 @@ async function startE2eApi({ postgres, fakesEnv, uploadRoot }) {
   });
   try {
     const service = await startApi(env, { stdout: log, name: 'E2E API' });
-    info(`E2E API at http://127.0.0.1:${port}, log in ${logPath}`);
-    return { service, baseUrl: `http://127.0.0.1:${port}` };
+    const baseUrl = `http://127.0.0.1:${port}`;
+    try {
+      await pointStripeWebhooksAt(fakesEnv, baseUrl);
+    } catch (error) {
+      await service.stop();
+      throw error;
+    }
+    info(`E2E API at ${baseUrl}, log in ${logPath}`);
+    return { service, baseUrl };
   } catch (error) {
     const tail = readFileSync(logPath, 'utf8').trimEnd().split('\n').slice(-30).join('\n');
     throw new DevstackError(error.message, { details: tail });

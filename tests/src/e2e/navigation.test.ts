@@ -15,15 +15,16 @@ import {
 const ESTIMATES = ['Estimates', 'Machine-hour rate', 'Own or hire', 'Joint ownership planner'];
 const FIELD_WORK = ['Work', 'Machines', 'Fields'];
 const SETTLING = ['Square-up', 'Year-end'];
+const BILLING = ['Invoices', 'Rates'];
 
 // What each role is meant to see (product brief, roles and their navigation; apps/web/src/lib/areas.ts).
 const EXPECTED_NAVIGATION: Record<keyof typeof DEMO_SIGN_INS, string[]> = {
-  owner: ['Dashboard', ...FIELD_WORK, ...SETTLING, ...ESTIMATES, 'Parties', 'Users', 'Account'],
-  partner: ['Dashboard', ...FIELD_WORK, ...SETTLING, ...ESTIMATES, 'Parties', 'Account'],
+  owner: ['Dashboard', ...FIELD_WORK, ...SETTLING, ...BILLING, ...ESTIMATES, 'Parties', 'Users', 'Account'],
+  partner: ['Dashboard', ...FIELD_WORK, ...SETTLING, ...BILLING, ...ESTIMATES, 'Parties', 'Account'],
   operator: ['Dashboard', ...FIELD_WORK, 'Account'],
-  bookkeeper: ['Dashboard', ...FIELD_WORK, ...SETTLING, ...ESTIMATES, 'Parties', 'Users', 'Account'],
-  customer: ['Dashboard', 'Account'],
-  customer2: ['Dashboard', 'Account'],
+  bookkeeper: ['Dashboard', ...FIELD_WORK, ...SETTLING, ...BILLING, ...ESTIMATES, 'Parties', 'Users', 'Account'],
+  customer: ['Dashboard', 'My invoices', 'Account'],
+  customer2: ['Dashboard', 'My invoices', 'Account'],
 };
 
 /**

@@ -110,6 +110,35 @@ export const routes: RouteObject[] = [
                   },
                 ],
               },
+              {
+                path: paths.rateSheets(),
+                loader: requireArea('rates'),
+                children: [
+                  { index: true, lazy: () => import('../features/rate-sheets/routes/RateSheetsPage') },
+                  { path: paths.newRateSheet(), lazy: () => import('../features/rate-sheets/routes/RateSheetFormPage') },
+                  { path: paths.rateSheet(':sheetId'), lazy: () => import('../features/rate-sheets/routes/RateSheetPage') },
+                  { path: paths.editRateSheet(':sheetId'), lazy: () => import('../features/rate-sheets/routes/RateSheetFormPage') },
+                ],
+              },
+              {
+                path: paths.invoices(),
+                loader: requireArea('invoices'),
+                children: [
+                  { index: true, lazy: () => import('../features/invoices/routes/InvoicesPage') },
+                  { path: paths.newInvoice(), lazy: () => import('../features/invoices/routes/NewInvoicePage') },
+                  { path: paths.invoice(':invoiceId'), lazy: () => import('../features/invoices/routes/InvoicePage') },
+                ],
+              },
+              {
+                path: paths.myInvoices(),
+                loader: requireArea('myInvoices'),
+                children: [
+                  { index: true, lazy: () => import('../features/customer/routes/MyInvoicesPage') },
+                  { path: paths.myInvoice(':invoiceId'), lazy: () => import('../features/customer/routes/MyInvoicePage') },
+                ],
+              },
+              // The e-mail's pay link and the card checkout's way back; it sends each role to its own invoice page.
+              { path: paths.payInvoice(':invoiceId'), lazy: () => import('../features/customer/routes/PayLinkPage') },
               { path: '*', element: <NotFound /> },
             ],
           },

@@ -6,20 +6,20 @@ const labelsFor = (role: (typeof ROLES)[number]) => areasFor(role).map((a) => a.
 
 describe('role areas', () => {
   it('gives the owner every area, in navigation order', () => {
-    expect(labelsFor('owner')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Square-up', 'Year-end', 'Estimates', 'Parties', 'Users', 'Account']);
+    expect(labelsFor('owner')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Square-up', 'Year-end', 'Invoices', 'Rates', 'Estimates', 'Parties', 'Users', 'Account']);
   });
 
   it('gives a partner estimates and parties but not users', () => {
-    expect(labelsFor('partner')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Square-up', 'Year-end', 'Estimates', 'Parties', 'Account']);
+    expect(labelsFor('partner')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Square-up', 'Year-end', 'Invoices', 'Rates', 'Estimates', 'Parties', 'Account']);
   });
 
   it('keeps money areas away from operators and customers', () => {
     expect(labelsFor('operator')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Account']);
-    expect(labelsFor('customer')).toEqual(['Dashboard', 'Account']);
+    expect(labelsFor('customer')).toEqual(['Dashboard', 'My invoices', 'Account']);
   });
 
   it('lets the bookkeeper view parties and users without managing them', () => {
-    expect(labelsFor('bookkeeper')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Square-up', 'Year-end', 'Estimates', 'Parties', 'Users', 'Account']);
+    expect(labelsFor('bookkeeper')).toEqual(['Dashboard', 'Work', 'Machines', 'Fields', 'Square-up', 'Year-end', 'Invoices', 'Rates', 'Estimates', 'Parties', 'Users', 'Account']);
     expect(accessTo('bookkeeper', 'parties')).toBe('view');
     expect(accessTo('bookkeeper', 'users')).toBe('view');
     expect(accessTo('owner', 'users')).toBe('manage');
@@ -52,6 +52,23 @@ describe('role areas', () => {
     expect(accessTo('bookkeeper', 'yearEnd')).toBe('view');
     expect(accessTo('operator', 'yearEnd')).toBeNull();
     expect(accessTo('customer', 'yearEnd')).toBeNull();
+  });
+
+  it('lets the owner bill and set rates, the partner bill and read rates, the bookkeeper read both', () => {
+    expect(accessTo('owner', 'invoices')).toBe('manage');
+    expect(accessTo('owner', 'rates')).toBe('manage');
+    expect(accessTo('partner', 'invoices')).toBe('manage');
+    expect(accessTo('partner', 'rates')).toBe('view');
+    expect(accessTo('bookkeeper', 'invoices')).toBe('view');
+    expect(accessTo('bookkeeper', 'rates')).toBe('view');
+  });
+
+  it('gives a customer their own invoices and nothing of the billing behind them', () => {
+    expect(accessTo('customer', 'myInvoices')).toBe('manage');
+    expect(accessTo('customer', 'invoices')).toBeNull();
+    expect(accessTo('customer', 'rates')).toBeNull();
+    expect(accessTo('operator', 'invoices')).toBeNull();
+    expect(accessTo('owner', 'myInvoices')).toBeNull();
   });
 
   it('answers null for an area the role may not open', () => {

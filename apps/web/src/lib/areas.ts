@@ -3,10 +3,12 @@ import {
   IconCalculator,
   IconChartBar,
   IconClipboardList,
+  IconFileInvoice,
+  IconGauge,
   IconMap2,
   IconScale,
+  IconTags,
   IconTractor,
-  IconGauge,
   IconUserCircle,
   IconUsers,
   IconUsersGroup,
@@ -79,6 +81,21 @@ export const AREAS = [
     access: { owner: 'manage', partner: 'view', bookkeeper: 'view' },
   },
   {
+    key: 'invoices',
+    label: 'Invoices',
+    href: paths.invoices(),
+    icon: IconFileInvoice,
+    // Drafting, issuing and recording payments are the owner's; the server refuses them to others.
+    access: { owner: 'manage', partner: 'manage', bookkeeper: 'view' },
+  },
+  {
+    key: 'rates',
+    label: 'Rates',
+    href: paths.rateSheets(),
+    icon: IconTags,
+    access: { owner: 'manage', partner: 'view', bookkeeper: 'view' },
+  },
+  {
     key: 'estimates',
     label: 'Estimates',
     href: paths.estimates.machineRate(),
@@ -99,6 +116,8 @@ export const AREAS = [
     access: { owner: 'manage', partner: 'manage', bookkeeper: 'view' },
   },
   { key: 'users', label: 'Users', href: paths.users(), icon: IconUsers, access: { owner: 'manage', bookkeeper: 'view' } },
+  // A customer sees only the invoices addressed to them; the server scopes every read to their party.
+  { key: 'myInvoices', label: 'My invoices', href: paths.myInvoices(), icon: IconFileInvoice, access: { customer: 'manage' } },
   { key: 'account', label: 'Account', href: paths.account(), icon: IconUserCircle, access: everyone },
 ] as const satisfies readonly Area[];
 

@@ -35,6 +35,11 @@ export type WorkEntryListQuery = {
   state?: string;
 };
 
+/** The invoice list's filters, as the API names them (`from`/`to` filter on the issue date). */
+export type InvoiceListQuery = ListQuery & { partyId?: string; state?: string; from?: string; to?: string };
+
+export type RateSheetListQuery = ListQuery & { relationship?: string; archived?: string };
+
 /** Every in-app link is built here, so a route can move without hunting for hand-written URLs. */
 export const paths = {
   dashboard: () => '/',
@@ -61,6 +66,17 @@ export const paths = {
   squareUps: () => '/square-ups',
   squareUp: (id: string) => `/square-ups/${id}`,
   yearEnd: (query?: { year?: number }) => withQuery('/year-end', query),
+  rateSheets: (query?: RateSheetListQuery) => withQuery('/rates', query),
+  newRateSheet: () => '/rates/new',
+  rateSheet: (id: string) => `/rates/${id}`,
+  editRateSheet: (id: string) => `/rates/${id}/edit`,
+  invoices: (query?: InvoiceListQuery) => withQuery('/invoices', query),
+  newInvoice: () => '/invoices/new',
+  invoice: (id: string) => `/invoices/${id}`,
+  myInvoices: (query?: ListQuery) => withQuery('/my-invoices', query),
+  myInvoice: (id: string) => `/my-invoices/${id}`,
+  /** The link the invoice e-mail carries and the page card checkout returns to (the API builds the same). */
+  payInvoice: (id: string, query?: { checkout?: string }) => withQuery(`/pay/${id}`, query),
   estimates: {
     machineRate: () => '/estimates/machine-rate',
     ownOrHire: () => '/estimates/own-or-hire',

@@ -1,0 +1,299 @@
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Dec } from '@hitchbook/shared/decimal';
+import { formatMoney } from '@hitchbook/shared/money';
+import {
+  baseUrlOrThrow,
+  DEMO_PASSWORD,
+  DEMO_SIGN_INS,
+  DESKTOP,
+  inFreshPage,
+  launchBrowser,
+  PHONE,
+  screenshot,
+  signInAndWait,
+} from './browser.js';
+
+// The neighbour whose sign-in is customer@hitchbook.test (packages/db/src/demo/people.ts).
+const NEIGHBOUR = 'Marisol Brandvold';
+const NEIGHBOUR_EMAIL = 'marisol@brandvold.example';
+
+interface Page_<T> {
+  items: T[];
+  total: number;
+}
+
+interface InvoiceJson {
+  id: string;
+  numberLabel: string | null;
+  total: string;
+  balance: string;
+  state: string;
+  lines: Array<{ kind: string; description: string; amount: string }>;
+}
+
+function mailApiUrlOrThrow(): string {
+  const url = process.env.MAIL_API_URL;
+  if (!url) throw new Error('MAIL_API_URL is not set: run the browser tests with "npm test", which starts the mail catcher.');
+  return url.replace(/\/$/, '');
+}
+
+async function apiAs(email: string) {
+  const base = baseUrlOrThrow();
+  const login = await fetch(`${base}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
+  });
+  expect(login.status).toBe(200);
+  const { accessToken } = (await login.json()) as { accessToken: string };
+  return async <T>(path: string): Promise<T> => {
+    const res = await fetch(`${base}${path}`, { headers: { Authorization: `Bearer ${accessToken}` } });
+    expect(res.status, `GET ${path}`).toBe(200);
+    return (await res.json()) as T;
+  };
+}
+
+/**
+ * The earliest day on which the neighbour has approved work that no invoice holds yet. Billing only
+ * that day leaves the rest of their work to other scenarios, and a rerun simply takes the next day.
+ */
+async function nextUnbilledDay(): Promise<{ partyId: string; day: string; fields: string[] }> {
+  const get = await apiAs(DEMO_SIGN_INS.owner);
+  const parties = await get<Page_<{ id: string; name: string }>>(`/api/parties?kind=customer&q=${encodeURIComponent(NEIGHBOUR)}`);
+  const party = parties.items.find((p) => p.name === NEIGHBOUR);
+  if (!party) throw new Error(`the demo has no customer named ${NEIGHBOUR}`);
+  const query = `billToPartyId=${party.id}&state=approved&sort=date&pageSize=200`;
+  const entries = await get<Page_<{ workDate: string; fieldName: string }>>(`/api/work-entries?${query}`);
+  const first = entries.items[0];
+  if (!first) throw new Error(`${NEIGHBOUR} has no approved, unbilled work left in the demo`);
+  const fields = entries.items.filter((e) => e.workDate === first.workDate).map((e) => e.fieldName);
+  return { partyId: party.id, day: first.workDate, fields };
+}
+
+async function waitForInvoiceMail(numberLabel: string): Promise<{ links: string[]; attachments: Array<{ filename: string }> }> {
+  const base = mailApiUrlOrThrow();
+  const deadline = Date.now() + 30_000;
+  while (Date.now() < deadline) {
+    const list = (await (await fetch(`${base}/api/messages?to=${encodeURIComponent(NEIGHBOUR_EMAIL)}`)).json()) as Array<{ id: string; subject: string }>;
+    const message = list.find((m) => m.subject.includes(numberLabel));
+    if (message) return (await (await fetch(`${base}/api/messages/${message.id}`)).json()) as { links: string[]; attachments: Array<{ filename: string }> };
+    await new Promise((r) => setTimeout(r, 500));
+  }
+  throw new Error(`no e-mail for ${numberLabel} reached ${NEIGHBOUR_EMAIL} within 30 s`);
+}
+
+/** "May 2, 2026", as the screens print a calendar day. */
+function printedDay(iso: string): string {
+  return new Date(`${iso}T12:00:00`).toLocaleDateString('en-US', { month: 'short', day: 'numeric', year: 'numeric' });
+}
+
+async function pickOption(page: Page, label: string, option: string) {
+  await page.getByRole('textbox', { name: label, exact: true }).click();
+  await page.getByRole('option', { name: option, exact: true }).click();
+}
+
+let browser: Browser;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe('billing a neighbour and getting paid by card', () => {
+  it('lets the owner draft, adjust, issue and e-mail an invoice that the neighbour pays with a test card', async () => {
+    const { day, fields } = await nextUnbilledDay();
+    let invoiceId = '';
+    let numberLabel = '';
+    let payLink = '';
+
+    await inFreshPage(browser, DESKTOP, 'billing-owner', async ({ page, foreignRequests }) => {
+      await signInAndWait(page, DEMO_SIGN_INS.owner);
+      await page.getByTestId('main-nav').getByText('Invoices', { exact: true }).click();
+      await page.getByRole('link', { name: 'New invoice' }).click();
+      await pickOption(page, 'Customer', NEIGHBOUR);
+      await page.getByText(/approved (entry waits|entries wait) to be billed/).waitFor();
+      await page.getByLabel('Work from', { exact: true }).fill(day);
+      await page.getByLabel('Work to', { exact: true }).fill(day);
+      await screenshot(page, 'invoice-new-owner-desktop');
+      await page.getByRole('button', { name: 'Preview invoice' }).click();
+
+      await page.getByRole('heading', { name: `Draft invoice for ${NEIGHBOUR}` }).waitFor();
+      invoiceId = new URL(page.url()).pathname.split('/').at(-1)!;
+      const lines = page.getByTestId('invoice-lines');
+      await lines.getByText(printedDay(day)).first().waitFor();
+      for (const field of fields) expect(await lines.getByText(field).count()).toBeGreaterThan(0);
+
+      const get = await apiAs(DEMO_SIGN_INS.owner);
+      const priced = await get<InvoiceJson>(`/api/invoices/${invoiceId}`);
+      expect(await page.getByTestId('invoice-total').textContent()).toBe(formatMoney(priced.total));
+
+      await page.getByRole('button', { name: 'Add a line' }).click();
+      const dialog = page.getByRole('dialog');
+      await dialog.getByLabel('Description', { exact: true }).fill('Tarp for the bale stack');
+      await dialog.getByLabel('Quantity', { exact: true }).fill('2');
+      await dialog.getByLabel('Unit', { exact: true }).fill('each');
+      await dialog.getByLabel('Rate', { exact: true }).fill('12.50');
+      await dialog.getByRole('button', { name: 'Add line' }).click();
+      await dialog.waitFor({ state: 'hidden' });
+      await lines.getByText('Tarp for the bale stack').waitFor();
+      // The server adds 2 × $12.50 to the total it priced; the screen shows its figure.
+      const adjusted = await get<InvoiceJson>(`/api/invoices/${invoiceId}`);
+      expect(adjusted.lines.find((l) => l.kind === 'adjustment')).toMatchObject({ description: 'Tarp for the bale stack', amount: '25.00' });
+      expect(new Dec(adjusted.total).minus(priced.total).toFixed(2)).toBe('25.00');
+      await expect.poll(() => page.getByTestId('invoice-total').textContent()).toBe(formatMoney(adjusted.total));
+      await screenshot(page, 'invoice-draft-owner-desktop');
+
+      await page.getByTestId('issue-invoice').click();
+      const confirm = page.getByRole('dialog', { name: 'Issue this invoice?' });
+      await confirm.getByText('The numbers are final').waitFor();
+      await confirm.getByText(/cannot be edited afterwards/).waitFor();
+      await screenshot(page, 'invoice-issue-confirm-owner-desktop');
+      await confirm.getByRole('button', { name: 'Issue invoice' }).click();
+      const heading = page.getByRole('heading', { name: /^Invoice INV-\d+$/ });
+      await heading.waitFor();
+      numberLabel = (await heading.textContent())!.replace('Invoice ', '');
+      expect(await page.getByTestId('invoice-state').textContent()).toBe('Issued');
+      // Issued invoices are never edited: the draft's controls are gone.
+      expect(await page.getByRole('button', { name: 'Add a line' }).count()).toBe(0);
+
+      await page.getByRole('button', { name: 'Send by e-mail' }).click();
+      const send = page.getByRole('dialog');
+      expect(await send.getByLabel('Send to', { exact: true }).inputValue()).toBe(NEIGHBOUR_EMAIL);
+      await send.getByRole('button', { name: 'Send e-mail' }).click();
+      await page.getByText(`${numberLabel} is on its way`).waitFor();
+      await screenshot(page, 'invoice-issued-owner-desktop');
+      expect(foreignRequests).toEqual([]);
+    });
+
+    const mail = await waitForInvoiceMail(numberLabel);
+    expect(mail.attachments.map((a) => a.filename)).toContain(`${numberLabel}.pdf`);
+    payLink = mail.links.find((l) => l.endsWith(`/pay/${invoiceId}`)) ?? '';
+    expect(payLink, `pay link in ${JSON.stringify(mail.links)}`).not.toBe('');
+
+    await inFreshPage(browser, PHONE, 'billing-customer-pays', async ({ page }) => {
+      await page.goto(payLink);
+      // Signed out, the link asks for a sign-in and then goes on to the invoice.
+      await page.getByRole('button', { name: 'Sign in' }).waitFor();
+      expect(new URL(page.url()).searchParams.get('next')).toBe(`/pay/${invoiceId}`);
+      await page.getByLabel('E-mail').fill(DEMO_SIGN_INS.customer);
+      await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await page.getByRole('heading', { name: `Invoice ${numberLabel}` }).waitFor();
+      expect(new URL(page.url()).pathname).toBe(`/my-invoices/${invoiceId}`);
+      await page.getByTestId('work-entries').getByText(printedDay(day)).first().waitFor();
+      await screenshot(page, 'my-invoice-customer-phone');
+
+      const balance = (await page.getByTestId('invoice-balance').textContent())!;
+      await page.getByRole('button', { name: `Pay ${balance} by card` }).click();
+      // The card page charges the balance the server holds, to the cent.
+      await page.getByLabel('Card number').waitFor();
+      const charged = `${balance.replace('$', '')} USD`;
+      expect(await page.getByTestId('amount').textContent()).toBe(charged);
+      await screenshot(page, 'card-checkout-customer-phone');
+      await page.getByLabel('Card number').fill('4242 4242 4242 4242');
+      await page.getByLabel('Expiry').fill('12 / 34');
+      await page.getByLabel('CVC').fill('123');
+      await page.getByRole('button', { name: `Pay ${charged}` }).click();
+
+      // Back in Hitchbook: the page waits for the signed webhook to record the payment.
+      await page.getByRole('heading', { name: /Payment being confirmed|Paid — thank you/ }).waitFor();
+      expect(new URL(page.url()).pathname).toBe(`/pay/${invoiceId}`);
+      await page.getByRole('heading', { name: 'Paid — thank you' }).waitFor({ timeout: 45_000 });
+      await page.getByText(`${balance} paid by card on invoice ${numberLabel}.`).waitFor();
+      await screenshot(page, 'payment-confirmed-customer-phone');
+      await page.getByRole('link', { name: 'See the invoice' }).click();
+      await page.getByRole('heading', { name: `Invoice ${numberLabel}` }).waitFor();
+      expect(await page.getByTestId('invoice-state').textContent()).toBe('Paid');
+      expect(await page.getByTestId('invoice-balance').textContent()).toBe('$0.00');
+      expect(await page.getByRole('button', { name: /^Pay / }).count()).toBe(0);
+      await page.getByTestId('payments').getByText(balance).waitFor();
+      await screenshot(page, 'my-invoice-paid-customer-phone');
+    });
+
+    const standing = await (await apiAs(DEMO_SIGN_INS.owner))<InvoiceJson>(`/api/invoices/${invoiceId}`);
+    expect(standing).toMatchObject({ state: 'paid', balance: '0.00' });
+  }, 180_000);
+});
+
+describe('the bookkeeper', () => {
+  it('reads invoices and their payments without any billing controls', async () => {
+    await inFreshPage(browser, DESKTOP, 'invoices-bookkeeper', async ({ page }) => {
+      await signInAndWait(page, DEMO_SIGN_INS.bookkeeper);
+      await page.goto(`${baseUrlOrThrow()}/invoices?state=paid`);
+      const paid = page.getByRole('link', { name: 'INV-0001', exact: true });
+      await paid.waitFor();
+      expect(await page.getByRole('link', { name: 'New invoice' }).count()).toBe(0);
+      await screenshot(page, 'invoices-bookkeeper-desktop');
+      await paid.click();
+      await page.getByRole('heading', { name: 'Invoice INV-0001' }).waitFor();
+      await page.getByTestId('payments').getByText('Cheque 2218').waitFor();
+      expect(await page.getByRole('button', { name: 'Download PDF' }).count()).toBe(1);
+      for (const control of ['Record payment', 'Send by e-mail', 'Correct', 'Issue invoice']) {
+        expect(await page.getByRole('button', { name: control }).count(), control).toBe(0);
+      }
+      await screenshot(page, 'invoice-paid-bookkeeper-desktop');
+    });
+  });
+
+  it('reads the invoice list and a rate sheet on a phone', async () => {
+    await inFreshPage(browser, PHONE, 'billing-bookkeeper-phone', async ({ page }) => {
+      await signInAndWait(page, DEMO_SIGN_INS.bookkeeper);
+      await page.goto(`${baseUrlOrThrow()}/invoices`);
+      await page.getByRole('link', { name: 'INV-0002', exact: true }).waitFor();
+      await screenshot(page, 'invoices-bookkeeper-phone');
+      await page.goto(`${baseUrlOrThrow()}/rates`);
+      await page.getByRole('link', { name: 'Neighbour custom rates' }).click();
+      await page.getByRole('heading', { name: 'Neighbour custom rates' }).waitFor();
+      await page.getByText('Changing a sheet never changes an issued invoice', { exact: false }).first().waitFor();
+      expect(await page.getByRole('link', { name: 'Edit' }).count()).toBe(0);
+      await screenshot(page, 'rate-sheet-bookkeeper-phone');
+    });
+  });
+});
+
+describe('rate sheets', () => {
+  it('lets the owner add an override sheet for one neighbour and shows it in the list', async () => {
+    await inFreshPage(browser, DESKTOP, 'rate-sheet-owner', async ({ page }) => {
+      const name = `Brandvold hay season ${Date.now()}`;
+      await signInAndWait(page, DEMO_SIGN_INS.owner);
+      await page.goto(`${baseUrlOrThrow()}/rates`);
+      await page.getByRole('link', { name: 'New rate sheet' }).click();
+      await page.getByLabel('Name', { exact: true }).fill(name);
+      await pickOption(page, 'For one party only (optional)', `${NEIGHBOUR} (neighbour)`);
+      // A far-off start keeps this sheet from pricing any other scenario's work; the day differs per run
+      // because two live sheets for one party may not start on the same day.
+      const start = new Date(Date.UTC(2090, 0, 1) + (Date.now() % 3650) * 86_400_000).toISOString().slice(0, 10);
+      await page.getByLabel('In force from', { exact: true }).fill(start);
+      await pickOption(page, 'Work type, rate 1', 'Mowing (rotary)');
+      expect(await page.getByRole('textbox', { name: 'Unit, rate 1' }).inputValue()).toBe('acre');
+      await page.getByLabel('Rate, rate 1', { exact: true }).fill('17.257');
+      await page.getByRole('button', { name: 'Add a rate' }).click();
+      await pickOption(page, 'Work type, rate 2', 'Mowing (rotary)');
+      await page.getByLabel('Rate, rate 2', { exact: true }).fill('abc');
+      await page.getByRole('button', { name: 'Add rate sheet' }).click();
+      await page.getByText('Enter a plain decimal number, for example 1234.50').waitFor();
+      await page.getByLabel('Rate, rate 2', { exact: true }).fill('16');
+      await page.getByRole('button', { name: 'Add rate sheet' }).click();
+      await page.getByText('This work type already has a rate in this unit and charge type.').waitFor();
+      await screenshot(page, 'rate-sheet-invalid-owner-desktop');
+
+      await page.getByRole('button', { name: 'Remove rate 2' }).click();
+      await page.getByText('Rental', { exact: true }).first().click();
+      await page.getByLabel('Minimum charge', { exact: true }).fill('60');
+      await page.getByRole('button', { name: 'Add rate sheet' }).click();
+      await page.getByRole('heading', { name }).waitFor();
+      await page.getByText(`for ${NEIGHBOUR} only`, { exact: false }).waitFor();
+      await page.getByText('$17.257/acre').waitFor();
+      await page.getByRole('cell', { name: 'Rental', exact: true }).waitFor();
+      await screenshot(page, 'rate-sheet-owner-desktop');
+
+      await page.getByTestId('main-nav').getByText('Rates', { exact: true }).click();
+      await page.getByRole('link', { name }).waitFor();
+      await screenshot(page, 'rate-sheets-owner-desktop');
+    });
+  });
+});
