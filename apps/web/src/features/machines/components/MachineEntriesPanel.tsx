@@ -10,9 +10,10 @@ import { useMachineEntries } from '../api/listMachineEntries';
 import { ENTRY_STATE_LABELS } from '../labels';
 import { useSectionParams } from '../sectionParams';
 
-const columns: MRT_ColumnDef<WorkEntryDto>[] = [
-  { id: 'date', accessorKey: 'workDate', header: 'Date', size: 120 },
-  { id: 'operator', accessorKey: 'operatorName', header: 'Operator', size: 150 },
+const dateColumn: MRT_ColumnDef<WorkEntryDto> = { id: 'date', accessorKey: 'workDate', header: 'Date', size: 120 };
+const operatorColumn: MRT_ColumnDef<WorkEntryDto> = { id: 'operator', accessorKey: 'operatorName', header: 'Operator', size: 150 };
+
+const otherColumns: MRT_ColumnDef<WorkEntryDto>[] = [
   { id: 'field', accessorKey: 'fieldName', header: 'Field', size: 150 },
   { accessorKey: 'workTypeName', header: 'Work', size: 140, enableSorting: false },
   { id: 'hours', accessorKey: 'hours', header: 'Hours', size: 90, Cell: ({ row }) => formatDecimal(row.original.hours, 2) },
@@ -30,8 +31,9 @@ const columns: MRT_ColumnDef<WorkEntryDto>[] = [
   },
 ];
 
-/** An operator's list holds only their own entries: the server scopes it. */
-export function MachineEntriesPanel({ machineId }: { machineId: string }) {
+/** An operator's list holds only their own entries (the server scopes it), so it needs no operator column. */
+export function MachineEntriesPanel({ machineId, showOperator }: { machineId: string; showOperator: boolean }) {
+  const columns = showOperator ? [dateColumn, operatorColumn, ...otherColumns] : [dateColumn, ...otherColumns];
   const { params, update } = useSectionParams('entries', { sort: '-date', pageSize: 10 });
   const entries = useMachineEntries({ machineId, page: params.page, pageSize: params.pageSize, sort: params.sort });
   return (

@@ -1,4 +1,4 @@
-import { ActionIcon, Badge, Button, Group, Select, Stack, Text } from '@mantine/core';
+import { ActionIcon, Badge, Button, Grid, Group, Select, Stack, Text } from '@mantine/core';
 import type { UseFormReturnType } from '@mantine/form';
 import { IconPlus, IconTrash } from '@tabler/icons-react';
 import { DecimalInput } from '../../../components/DecimalInput';
@@ -26,34 +26,31 @@ export function SharesEditor<Values extends FormValues>({ form, path, lines, hou
         // A household already named on another line is not offered again.
         const taken = new Set(lines.filter((_, i) => i !== index).map((l) => l.partyId));
         return (
-          <Group key={index} gap="sm" align="flex-start" wrap="nowrap">
-            <Select
-              label={index === 0 ? 'Household' : undefined}
-              aria-label={`Household ${index + 1}`}
-              placeholder="Pick a household"
-              data={households.filter((h) => !taken.has(h.id) || h.id === line.partyId).map((h) => ({ value: h.id, label: h.name }))}
-              allowDeselect={false}
-              style={{ flex: 1, minWidth: 0 }}
-              {...form.getInputProps(`${path}.${index}.partyId`)}
-            />
-            <DecimalInput
-              label={index === 0 ? 'Share' : undefined}
-              aria-label={`Share of household ${index + 1}`}
-              unit="%"
-              w={130}
-              {...form.getInputProps(`${path}.${index}.sharePct`)}
-            />
-            <ActionIcon
-              variant="subtle"
-              color="red"
-              size={48}
-              mt={index === 0 ? 27 : 0}
-              aria-label={`Remove household ${index + 1}`}
-              onClick={() => form.removeListItem(path, index)}
-            >
-              <IconTrash />
-            </ActionIcon>
-          </Group>
+          <Grid key={index} gutter="sm" align="flex-end">
+            <Grid.Col span={{ base: 12, xs: 7 }}>
+              <Select
+                label={index === 0 ? 'Household' : undefined}
+                aria-label={`Household ${index + 1}`}
+                placeholder="Pick a household"
+                data={households.filter((h) => !taken.has(h.id) || h.id === line.partyId).map((h) => ({ value: h.id, label: h.name }))}
+                allowDeselect={false}
+                {...form.getInputProps(`${path}.${index}.partyId`)}
+              />
+            </Grid.Col>
+            <Grid.Col span={{ base: 9, xs: 4 }}>
+              <DecimalInput
+                label={index === 0 ? 'Share' : undefined}
+                aria-label={`Share of household ${index + 1}`}
+                unit="%"
+                {...form.getInputProps(`${path}.${index}.sharePct`)}
+              />
+            </Grid.Col>
+            <Grid.Col span={{ base: 3, xs: 1 }}>
+              <ActionIcon variant="subtle" color="red" size={48} aria-label={`Remove household ${index + 1}`} onClick={() => form.removeListItem(path, index)}>
+                <IconTrash />
+              </ActionIcon>
+            </Grid.Col>
+          </Grid>
         );
       })}
       <Group justify="space-between" gap="sm">
@@ -66,7 +63,7 @@ export function SharesEditor<Values extends FormValues>({ form, path, lines, hou
           Add a household
         </Button>
         {lines.length > 0 && (
-          <Badge size="xl" variant="light" color={tally.complete ? 'harbor' : 'clay'} data-testid="shares-total">
+          <Badge size="xl" tt="none" variant="light" color={tally.complete ? 'harbor' : 'clay'} data-testid="shares-total">
             Total {tally.total.toString()} %
             {!tally.complete && tally.remaining.gt(0) && ` · ${tally.remaining.toString()} % to give`}
             {tally.remaining.lt(0) && ` · ${tally.remaining.negated().toString()} % too much`}

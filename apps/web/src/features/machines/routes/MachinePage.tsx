@@ -96,7 +96,7 @@ export function Component() {
       <MeterPanel machineId={machine.id} readings={summary.data.meterHistory} canRecord={METER_READERS.has(user.role)} />
       {seesMoney && <RatePanel summary={summary.data} />}
       {seesMoney && <CostsPanel machineId={machine.id} canManage={canManage} ownPartyId={user.partyId ?? null} />}
-      <MachineEntriesPanel machineId={machine.id} />
+      <MachineEntriesPanel machineId={machine.id} showOperator={user.role !== 'operator'} />
     </Stack>
   );
 }

@@ -1,4 +1,5 @@
-import { Anchor, Badge, Checkbox, Stack, Text } from '@mantine/core';
+import type { ReactNode } from 'react';
+import { Anchor, Badge, Checkbox, Group, Stack, Text } from '@mantine/core';
 import type { MRT_ColumnDef } from 'mantine-react-table';
 import type { WorkEntryDto, WorkEntryPage } from '@hitchbook/shared/schemas/work-entries';
 import { formatDecimal } from '../../../lib/money';
@@ -28,9 +29,42 @@ export interface EntryColumnsOptions {
   } | null;
   showOperator: boolean;
   onOperator: (entry: WorkEntryDto) => void;
+  /** On a phone every entry is one cell with its buttons inside, so nothing hides off screen. */
+  compact: { actions: (entry: WorkEntryDto) => ReactNode } | null;
 }
 
-export function entryColumns({ totals, selection, showOperator, onOperator }: EntryColumnsOptions): MRT_ColumnDef<WorkEntryDto>[] {
+function CompactEntry({ entry, showOperator, actions }: { entry: WorkEntryDto; showOperator: boolean; actions: ReactNode }) {
+  const machines = [entry.powerMachineName, entry.implementMachineName].filter(Boolean).join(' + ');
+  return (
+    <Stack gap={4} data-testid="entry-card" data-entry-id={entry.id}>
+      <Group justify="space-between" wrap="nowrap" align="flex-start">
+        <Stack gap={2}>
+          <Group gap="xs">
+            <Text fw={700} style={NUMBER}>
+              {entry.workDate}
+            </Text>
+            <Badge variant="light" tt="none" size="md" color={STATE_COLORS[entry.state]} data-testid="entry-state">
+              {STATE_LABELS[entry.state]}
+            </Badge>
+          </Group>
+          <Text fw={600}>
+            {entry.workTypeName} · {entry.fieldName}
+          </Text>
+        </Stack>
+        {actions}
+      </Group>
+      <Text size="sm" style={NUMBER}>
+        {formatDecimal(entry.hours, 2)} h{entry.acres ? ` · ${formatDecimal(entry.acres, 2)} ac` : ''}
+        {entry.miles ? ` · ${formatDecimal(entry.miles, 2)} mi` : ''}
+      </Text>
+      <Text size="sm" c="dimmed">
+        {[showOperator ? entry.operatorName : null, machines || null, `for ${entry.billToName}`].filter(Boolean).join(' · ')}
+      </Text>
+    </Stack>
+  );
+}
+
+export function entryColumns({ totals, selection, showOperator, onOperator, compact }: EntryColumnsOptions): MRT_ColumnDef<WorkEntryDto>[] {
   const columns: MRT_ColumnDef<WorkEntryDto>[] = [];
   if (selection) {
     const all = selection.selectable.length > 0 && selection.selectable.every((e) => selection.selected.has(e.id));
@@ -61,6 +95,22 @@ export function entryColumns({ totals, selection, showOperator, onOperator }: En
         ) : null,
     });
   }
+  if (compact) {
+    columns.push({
+      id: 'date',
+      accessorKey: 'workDate',
+      header: 'Date',
+      Cell: ({ row }) => <CompactEntry entry={row.original} showOperator={showOperator} actions={compact.actions(row.original)} />,
+      Footer: () => (
+        <Group gap="md">
+          <Total value={totals?.hours} unit="h" />
+          <Total value={totals?.acres} unit="ac" />
+          <Total value={totals?.miles} unit="mi" />
+        </Group>
+      ),
+    });
+    return columns;
+  }
   columns.push({
     id: 'date',
     accessorKey: 'workDate',
@@ -68,7 +118,7 @@ export function entryColumns({ totals, selection, showOperator, onOperator }: En
     size: 100,
     // The state sits under the date: it is what an approver scans for, and a column of its own does not fit a laptop.
     Cell: ({ row }) => (
-      <Stack gap={4} align="flex-start">
+      <Stack gap={4} align="flex-start" data-entry-id={row.original.id}>
         <Text size="sm" style={NUMBER}>
           {row.original.workDate}
         </Text>

@@ -1,7 +1,8 @@
 import { useState } from 'react';
-import { ActionIcon, Button, Group, Paper, Text, Tooltip } from '@mantine/core';
+import { Button, Group, Paper, Text } from '@mantine/core';
+import { useMediaQuery } from '@mantine/hooks';
 import { notifications } from '@mantine/notifications';
-import { IconArrowBackUp, IconCalendarWeek, IconChecks, IconCircleCheck, IconDownload, IconFileImport, IconPencil, IconPlus, IconSend } from '@tabler/icons-react';
+import { IconCalendarWeek, IconChecks, IconDownload, IconFileImport, IconPlus } from '@tabler/icons-react';
 import { Link } from 'react-router-dom';
 import type { WorkEntryDto } from '@hitchbook/shared/schemas/work-entries';
 import { EmptyState } from '../../../components/EmptyState';
@@ -12,20 +13,16 @@ import { useSessionUserOrThrow } from '../../../lib/auth';
 import { useListParams } from '../../../lib/listParams';
 import { weekOf } from '../../../lib/localTime';
 import { paths } from '../../../lib/paths';
-import { useApproveWorkEntries, useApproveWorkEntry } from '../api/approveWorkEntry';
+import { useApproveWorkEntries } from '../api/approveWorkEntry';
 import { exportWorkEntries } from '../api/exportWorkEntries';
 import { useWorkEntries } from '../api/listWorkEntries';
-import { useReopenWorkEntry } from '../api/reopenWorkEntry';
-import { useSubmitWorkEntry } from '../api/submitWorkEntry';
 import { entryColumns } from '../components/EntryColumns';
 import { EntryFiltersBar } from '../components/EntryFiltersBar';
+import { EntryRowActions } from '../components/EntryRowActions';
+import { FiltersDisclosure } from '../components/FiltersDisclosure';
 import { hasFilters, readEntryFilters } from '../entryFilters';
 
 const APPROVERS = new Set(['owner', 'partner']);
-
-function failed(title: string) {
-  return (error: Error) => notifications.show({ color: 'red', title, message: error.message });
-}
 
 export function Component() {
   const user = useSessionUserOrThrow();
@@ -34,10 +31,8 @@ export function Component() {
   const { params, searchParams, update } = useListParams({ sort: '-date' });
   const filters = readEntryFilters(searchParams);
   const entries = useWorkEntries({ ...filters, page: params.page, pageSize: params.pageSize });
-  const approve = useApproveWorkEntry();
   const approveMany = useApproveWorkEntries();
-  const reopen = useReopenWorkEntry();
-  const submit = useSubmitWorkEntry();
+  const phone = useMediaQuery('(max-width: 48em)') ?? false;
   const [selected, setSelected] = useState<Map<string, WorkEntryDto>>(new Map());
   const [exporting, setExporting] = useState(false);
   const items = entries.data?.items ?? [];
@@ -62,12 +57,14 @@ export function Component() {
       return next;
     });
 
+  const rowActions = (entry: WorkEntryDto) => <EntryRowActions entry={entry} approver={approver} mine={entry.operatorUserId === user.id} />;
   const columns = entryColumns({
     totals: entries.data?.totals,
     selection: approver ? { selected: new Set(selected.keys()), selectable: submittedOnPage, toggle, toggleAll } : null,
     // An operator's table holds only their own entries, so the column would say the same name on every row.
     showOperator: user.role !== 'operator',
     onOperator: (entry) => update({ operatorUserId: entry.operatorUserId }),
+    compact: phone ? { actions: canLog ? rowActions : () => null } : null,
   });
 
   function approveSelected() {
@@ -96,60 +93,6 @@ export function Component() {
   }
 
   const week = weekOf();
-  const rowActions = (entry: WorkEntryDto) => {
-    const mine = entry.operatorUserId === user.id;
-    return (
-      <Group gap={4} wrap="nowrap">
-        {approver && entry.state === 'submitted' && (
-          <Tooltip label="Approve">
-            <ActionIcon
-              size="xl"
-              variant="subtle"
-              aria-label={`Approve the entry of ${entry.workDate} on ${entry.fieldName}`}
-              loading={approve.isPending && approve.variables?.id === entry.id}
-              onClick={() => approve.mutate({ id: entry.id, version: entry.version }, { onError: failed('Not approved') })}
-            >
-              <IconCircleCheck />
-            </ActionIcon>
-          </Tooltip>
-        )}
-        {approver && entry.state === 'approved' && (
-          <Tooltip label="Reopen to change it">
-            <ActionIcon
-              size="xl"
-              variant="subtle"
-              color="clay"
-              aria-label={`Reopen the entry of ${entry.workDate} on ${entry.fieldName}`}
-              loading={reopen.isPending && reopen.variables?.id === entry.id}
-              onClick={() => reopen.mutate({ id: entry.id, version: entry.version }, { onError: failed('Not reopened') })}
-            >
-              <IconArrowBackUp />
-            </ActionIcon>
-          </Tooltip>
-        )}
-        {canLog && entry.state === 'draft' && (approver || mine) && (
-          <Tooltip label="Submit for approval">
-            <ActionIcon
-              size="xl"
-              variant="subtle"
-              aria-label={`Submit the entry of ${entry.workDate} on ${entry.fieldName}`}
-              loading={submit.isPending && submit.variables?.id === entry.id}
-              onClick={() => submit.mutate({ id: entry.id, version: entry.version }, { onError: failed('Not submitted') })}
-            >
-              <IconSend />
-            </ActionIcon>
-          </Tooltip>
-        )}
-        {canLog && (entry.state === 'draft' || entry.state === 'submitted') && (approver || mine) && (
-          <Tooltip label="Change">
-            <ActionIcon size="xl" variant="subtle" component={Link} to={paths.work.editEntry(entry.id)} aria-label={`Change the entry of ${entry.workDate} on ${entry.fieldName}`}>
-              <IconPencil />
-            </ActionIcon>
-          </Tooltip>
-        )}
-      </Group>
-    );
-  };
 
   return (
     <>
@@ -212,8 +155,12 @@ export function Component() {
         params={params}
         onParamsChange={update}
         getRowId={(entry) => entry.id}
-        toolbar={<EntryFiltersBar role={user.role} filters={filters} operatorName={operatorName} update={update} />}
-        rowActions={canLog ? rowActions : undefined}
+        toolbar={
+          <FiltersDisclosure phone={phone} active={hasFilters(filters)}>
+            <EntryFiltersBar role={user.role} filters={filters} operatorName={operatorName} update={update} />
+          </FiltersDisclosure>
+        }
+        rowActions={canLog && !phone ? rowActions : undefined}
         emptyState={
           <EmptyState title={hasFilters(filters) ? 'No entries match' : 'No work logged yet'}>
             {hasFilters(filters) ? 'Widen the dates or clear a filter.' : canLog ? 'Log the first pass from the cab with “Log work”.' : undefined}
