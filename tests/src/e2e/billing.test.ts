@@ -93,6 +93,26 @@ async function pickOption(page: Page, label: string, option: string) {
   await page.getByRole('option', { name: option, exact: true }).click();
 }
 
+/** Drafts an invoice for the neighbour's work on one day through the New invoice screen. */
+async function draftInBrowser(page: Page, day: string): Promise<string> {
+  await page.goto(`${baseUrlOrThrow()}/invoices/new`);
+  await pickOption(page, 'Customer', NEIGHBOUR);
+  await page.getByLabel('Work from', { exact: true }).fill(day);
+  await page.getByLabel('Work to', { exact: true }).fill(day);
+  await page.getByRole('button', { name: 'Preview invoice' }).click();
+  await page.getByRole('heading', { name: `Draft invoice for ${NEIGHBOUR}` }).waitFor();
+  return new URL(page.url()).pathname.split('/').at(-1)!;
+}
+
+/** Issues the draft on screen and answers its new number. */
+async function issueInBrowser(page: Page): Promise<string> {
+  await page.getByTestId('issue-invoice').click();
+  await page.getByRole('dialog', { name: 'Issue this invoice?' }).getByRole('button', { name: 'Issue invoice' }).click();
+  const heading = page.getByRole('heading', { name: /^Invoice INV-\d+$/ });
+  await heading.waitFor();
+  return (await heading.textContent())!.replace('Invoice ', '');
+}
+
 let browser: Browser;
 
 beforeAll(async () => {
@@ -217,6 +237,96 @@ describe('billing a neighbour and getting paid by card', () => {
     const standing = await (await apiAs(DEMO_SIGN_INS.owner))<InvoiceJson>(`/api/invoices/${invoiceId}`);
     expect(standing).toMatchObject({ state: 'paid', balance: '0.00' });
   }, 180_000);
+});
+
+describe('correcting an issued invoice', () => {
+  it('takes a discount, a part payment by cheque up to the balance, and a credit note for the rest', async () => {
+    const { day } = await nextUnbilledDay();
+    await inFreshPage(browser, DESKTOP, 'billing-corrections', async ({ page }) => {
+      await signInAndWait(page, DEMO_SIGN_INS.owner);
+      const id = await draftInBrowser(page, day);
+      const get = await apiAs(DEMO_SIGN_INS.owner);
+
+      await page.getByRole('button', { name: 'Discount' }).click();
+      const discount = page.getByRole('dialog');
+      await discount.getByText('A percentage', { exact: true }).click();
+      await discount.getByLabel('Description', { exact: true }).fill('Good neighbour');
+      await discount.getByLabel('Percent off', { exact: true }).fill('10');
+      await discount.getByRole('button', { name: 'Save discount' }).click();
+      await discount.waitFor({ state: 'hidden' });
+      const discounted = await get<InvoiceJson & { subtotal: string }>(`/api/invoices/${id}`);
+      // Ten percent of the subtotal, rounded to the cent by the server, comes off the total.
+      const expectedTotal = new Dec(discounted.subtotal).minus(new Dec(discounted.subtotal).times('0.1').toDecimalPlaces(2, Dec.ROUND_HALF_UP));
+      expect(discounted.total).toBe(expectedTotal.toFixed(2));
+      await expect.poll(() => page.getByTestId('invoice-total').textContent()).toBe(formatMoney(discounted.total));
+      await page.getByText('Discount: Good neighbour').waitFor();
+
+      const numberLabel = await issueInBrowser(page);
+      const total = discounted.total;
+
+      await page.getByRole('button', { name: 'Record payment' }).click();
+      const payment = page.getByRole('dialog', { name: `Record a payment on ${numberLabel}` });
+      expect(await payment.getByLabel('Amount', { exact: true }).inputValue()).toBe(total);
+      await payment.getByLabel('Amount', { exact: true }).fill(new Dec(total).plus('0.01').toFixed(2));
+      await payment.getByRole('button', { name: 'Record payment' }).click();
+      await payment.getByText(`At most the open balance of ${formatMoney(total)}.`).waitFor();
+      const part = new Dec(total).div(2).toDecimalPlaces(2, Dec.ROUND_DOWN);
+      await payment.getByLabel('Amount', { exact: true }).fill(part.toFixed(2));
+      await payment.getByLabel('Reference', { exact: true }).fill('Cheque 3141');
+      await payment.getByRole('button', { name: 'Record payment' }).click();
+      await payment.waitFor({ state: 'hidden' });
+      await page.getByTestId('payments').getByText('Cheque 3141').waitFor();
+      await expect.poll(() => page.getByTestId('invoice-state').textContent()).toBe('Partly paid');
+      const rest = new Dec(total).minus(part).toFixed(2);
+      expect(await page.getByTestId('invoice-balance').textContent()).toBe(formatMoney(rest));
+      await screenshot(page, 'invoice-partly-paid-owner-desktop');
+
+      await page.getByRole('button', { name: 'Correct' }).click();
+      // Money was received, so the invoice can no longer be voided; it is corrected by a credit note.
+      expect(await page.getByRole('menuitem', { name: 'Void invoice…' }).count()).toBe(0);
+      await page.getByRole('menuitem', { name: 'Credit note…' }).click();
+      const credit = page.getByRole('dialog');
+      await credit.getByText('An amount', { exact: true }).click();
+      await credit.getByLabel('Reason', { exact: true }).fill('Logged twice by the cab and the office');
+      await credit.getByLabel('Line description', { exact: true }).fill('Work logged twice');
+      await credit.getByLabel('Amount to credit', { exact: true }).fill(rest);
+      await credit.getByRole('button', { name: 'Issue credit note' }).click();
+      await page.getByRole('heading', { name: /^Credit note CN-\d+$/ }).waitFor();
+      await page.getByText(`Corrects invoice ${numberLabel}: Logged twice by the cab and the office`).waitFor();
+      await screenshot(page, 'credit-note-owner-desktop');
+
+      await page.getByRole('link', { name: numberLabel, exact: true }).click();
+      await page.getByRole('heading', { name: `Invoice ${numberLabel}` }).waitFor();
+      expect(await page.getByTestId('invoice-balance').textContent()).toBe('$0.00');
+      expect(await page.getByRole('button', { name: 'Record payment' }).count()).toBe(0);
+      expect(await get<InvoiceJson>(`/api/invoices/${id}`)).toMatchObject({ state: 'paid', balance: '0.00' });
+    });
+  });
+
+  it('voids an invoice issued by mistake and frees its work for another invoice', async () => {
+    const { partyId, day } = await nextUnbilledDay();
+    await inFreshPage(browser, PHONE, 'billing-void', async ({ page }) => {
+      await signInAndWait(page, DEMO_SIGN_INS.owner);
+      await draftInBrowser(page, day);
+      await screenshot(page, 'invoice-draft-owner-phone');
+      const numberLabel = await issueInBrowser(page);
+      await page.getByRole('button', { name: 'Correct' }).click();
+      await page.getByRole('menuitem', { name: 'Void invoice…' }).click();
+      const dialog = page.getByRole('dialog', { name: `Void ${numberLabel}?` });
+      await dialog.getByRole('button', { name: 'Void invoice' }).click();
+      await dialog.getByText('Required.', { exact: true }).waitFor();
+      await dialog.getByLabel('Reason', { exact: true }).fill('Billed to the wrong neighbour');
+      await dialog.getByRole('button', { name: 'Void invoice' }).click();
+      await dialog.waitFor({ state: 'hidden' });
+      await expect.poll(() => page.getByTestId('invoice-state').textContent()).toBe('Void');
+      await page.getByText('Billed to the wrong neighbour', { exact: false }).waitFor();
+      await screenshot(page, 'invoice-void-owner-phone');
+    });
+    // The day's work is unbilled again, so the next invoice can take it.
+    const get = await apiAs(DEMO_SIGN_INS.owner);
+    const freed = await get<Page_<{ workDate: string }>>(`/api/work-entries?billToPartyId=${partyId}&state=approved&dateFrom=${day}&dateTo=${day}`);
+    expect(freed.total).toBeGreaterThan(0);
+  });
 });
 
 describe('the bookkeeper', () => {

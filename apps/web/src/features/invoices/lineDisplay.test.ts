@@ -43,6 +43,11 @@ describe('invoice lines as printed', () => {
     expect(minimum).toMatchObject({ what: 'Minimum charge', detail: 'Minimum charge for Mowing (rotary)', quantity: null, rate: null });
   });
 
+  it("names a line the owner added by its own wording", () => {
+    const added = lineView(line({ kind: 'adjustment', workEntryId: null, workDate: null, description: 'Tarp for the bale stack', fieldName: null, workTypeName: null, quantity: '2.000', unit: 'each', rate: '12.5000', amount: '25.00' }));
+    expect(added).toMatchObject({ what: 'Tarp for the bale stack', detail: null, quantity: '2', rate: '$12.50', amount: '$25.00', isWork: false });
+  });
+
   it('prints a discount as a negative amount', () => {
     expect(lineView(line({ kind: 'discount', description: 'Neighbour discount', workDate: null, quantity: null, unit: null, rate: null, amount: '-25.00' })).amount).toBe('-$25.00');
   });

@@ -32,7 +32,8 @@ export function formatLineRate(rate: string): string {
 
 export function lineView(line: InvoiceLineDto): LineView {
   const isWork = line.kind === 'work';
-  const what = isWork ? (line.workTypeName ?? line.description) : LINE_KIND_LABELS[line.kind];
+  // A line the owner added (or a credit note's line) is best named by its own wording.
+  const what = isWork ? (line.workTypeName ?? line.description) : line.kind === 'adjustment' ? line.description : LINE_KIND_LABELS[line.kind];
   return {
     id: line.id,
     date: line.workDate ? formatDay(line.workDate) : null,

@@ -20,11 +20,12 @@ function VoidForm({ invoice, onDone }: { invoice: InvoiceDto; onDone: () => void
       <Stack gap="md">
         <FormErrorAlert message={formError} />
         <Text>
-          {invoice.numberLabel} keeps its number and stays on record as void; nothing is owed on it. Its work entries
-          can be billed again on a new invoice.
+          {invoice.kind === 'credit-note'
+            ? `${invoice.numberLabel} keeps its number and stays on record as void; the invoice it corrected owes its amount again.`
+            : `${invoice.numberLabel} keeps its number and stays on record as void; nothing is owed on it. Its work entries can be billed again on a new invoice.`}
         </Text>
         <TextInput label="Reason" placeholder="Billed to the wrong neighbour" autoFocus {...form.getInputProps('reason')} />
-        <FormButtons submitLabel="Void invoice" color="red" submitting={submitting} onCancel={onDone} />
+        <FormButtons submitLabel={invoice.kind === 'credit-note' ? 'Void credit note' : 'Void invoice'} color="red" submitting={submitting} onCancel={onDone} />
       </Stack>
     </form>
   );

@@ -86,7 +86,7 @@ function InvoiceView({ invoice, role }: { invoice: InvoiceDto; role: Role }) {
             )}
             {actions.void && (
               <Menu.Item color="red" leftSection={<IconBan size={18} />} onClick={openDialog('void')}>
-                Void invoice…
+                {invoice.kind === 'credit-note' ? 'Void credit note…' : 'Void invoice…'}
               </Menu.Item>
             )}
           </Menu.Dropdown>
@@ -134,7 +134,8 @@ function InvoiceView({ invoice, role }: { invoice: InvoiceDto; role: Role }) {
           )}
         </Group>
         <InvoiceLinesTable
-          lines={invoice.lines}
+          // The discount is shown once, with the totals it comes off.
+          lines={invoice.lines.filter((line) => line.kind !== 'discount')}
           lineAction={actions.editDraft ? (line) => (line.kind === 'adjustment' ? <RemoveLineButton invoice={invoice} line={line} /> : null) : undefined}
         />
       </Stack>
