@@ -125,6 +125,22 @@ describe('logging work from the cab', () => {
     });
   });
 
+  it('saves a very long day but shows the server’s warning after saving, not an error', async () => {
+    await inFreshPage(browser, PHONE, 'long-entry', async ({ page }) => {
+      await signInAndWait(page, DEMO_SIGN_INS.owner);
+      await page.goto(`${baseUrlOrThrow()}/work/log`);
+      await pick(page, page.getByTestId('entry-field'), 'Home West');
+      await pick(page, page.getByTestId('entry-work-type'), 'Grain cart');
+      await page.getByText('Hours', { exact: true }).click();
+      await page.getByLabel('Machine hours').fill('17');
+      await page.getByText('That is a long day.', { exact: false }).waitFor();
+      await page.getByRole('button', { name: 'Save as draft' }).click();
+      await page.getByTestId('entry-saved').getByText('Saved as a draft').waitFor();
+      expect(await page.getByTestId('entry-warnings').textContent()).toContain('more than 16 h');
+      await screenshot(page, 'cab-entry-warning-owner-phone');
+    });
+  });
+
   it('lets the partner approve several submitted entries at once', async () => {
     const operator = await apiToken(DEMO_SIGN_INS.operator);
     const fields = await apiCall<{ items: Named[] }>(operator, 'GET', '/api/fields?pageSize=200');

@@ -1,5 +1,6 @@
 import { Decimal } from 'decimal.js';
-import { FULL_OWNERSHIP_PCT } from '@hitchbook/shared/schemas/machines';
+import type { Role } from '@hitchbook/shared/roles';
+import { FULL_OWNERSHIP_PCT, type MachineSharesDto } from '@hitchbook/shared/schemas/machines';
 import { isDecimalString } from '@hitchbook/shared/decimal';
 
 export interface ShareLineValues {
@@ -37,4 +38,15 @@ export function plainSharePct(value: string): string {
 /** Shares as the server prints them ("33.3333") and as a person reads them ("33.3333 %", "50 %"). */
 export function formatSharePct(value: string): string {
   return `${plainSharePct(value)} %`;
+}
+
+/**
+ * The server's rule for changing a machine, its owners and its costs: the owner always; a partner
+ * while its household holds a share in the set in force today or in one dated later.
+ */
+export function mayChangeMachine(role: Role, partyId: string | null, shares: MachineSharesDto | undefined): boolean {
+  if (role === 'owner') return true;
+  if (role !== 'partner' || !partyId || !shares) return false;
+  const from = shares.current?.effectiveFrom ?? '';
+  return shares.history.some((set) => set.effectiveFrom >= from && set.shares.some((s) => s.partyId === partyId));
 }

@@ -87,10 +87,22 @@ describe('new entry payload', () => {
 });
 
 describe('changing a stored entry', () => {
-  it('sends the version it was edited against', () => {
-    const change = entryChangePayload(roadsidePass(), 3);
-    expect(change.version).toBe(3);
+  it('sends what was changed and the version it was changed against', () => {
+    const change = entryChangePayload({ ...roadsidePass(), meterEnd: '6255.8' }, roadsidePass(), 3);
+    expect(change).toEqual({ meterEnd: '6255.8', version: 3 });
     expect(workEntryUpdateSchema.safeParse(change).success).toBe(true);
+  });
+
+  it('leaves an untouched empty figure out, so the stored one is not filled in again', () => {
+    const stored = { ...roadsidePass(), acres: '' };
+    expect(entryChangePayload({ ...stored, notes: 'Wet at the culvert' }, stored, 2)).toEqual({ notes: 'Wet at the culvert', version: 2 });
+  });
+
+  it('sends the clock times together with the clearing of the meter when the timing changes', () => {
+    const change = entryChangePayload({ ...roadsidePass(), timing: 'clock', startTime: '07:30', endTime: '10:00' }, roadsidePass(), 4);
+    expect(change.meterStart).toBeNull();
+    expect(change.meterEnd).toBeNull();
+    expect(change.startedAt).toMatch(/^2025-06-03T07:30:00/);
   });
 });
 

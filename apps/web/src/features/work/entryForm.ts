@@ -155,8 +155,15 @@ export function newEntryPayload(values: EntryFormValues, clientId: string, state
   return { clientId, ...entryBody(values), operatorUserId: values.operatorUserId || undefined, state };
 }
 
-export function entryChangePayload(values: EntryFormValues, version: number): WorkEntryChange {
-  return { ...entryBody(values), version };
+/**
+ * Only what was changed travels, with the version it was changed against: a field left alone keeps
+ * its stored value, even one the server filled in (an empty figure would be filled in again).
+ */
+export function entryChangePayload(values: EntryFormValues, initial: EntryFormValues, version: number): WorkEntryChange {
+  const before = entryBody(initial);
+  const after = entryBody(values);
+  const changed = Object.fromEntries(Object.entries(after).filter(([key, value]) => before[key as keyof typeof before] !== value));
+  return { ...changed, version };
 }
 
 /** Where a server issue about the request lands among the fields the operator sees. */

@@ -9,6 +9,7 @@ import { isApiError } from '../../../lib/api';
 import { accessTo } from '../../../lib/areas';
 import { useSessionUserOrThrow } from '../../../lib/auth';
 import { paths } from '../../../lib/paths';
+import { useMachineShares } from '../api/getMachineShares';
 import { useMachineSummary } from '../api/getMachineSummary';
 import { CostsPanel } from '../components/CostsPanel';
 import { MachineDetails } from '../components/MachineDetails';
@@ -17,6 +18,7 @@ import { MeterPanel } from '../components/MeterPanel';
 import { OwnersPanel } from '../components/OwnersPanel';
 import { RatePanel } from '../components/RatePanel';
 import { KIND_LABELS, STATUS_COLORS, STATUS_LABELS } from '../labels';
+import { mayChangeMachine } from '../shares';
 
 /** The roles the API lets record a meter reading: the operator reads the meter in the cab. */
 const METER_READERS = new Set(['owner', 'partner', 'operator']);
@@ -31,7 +33,9 @@ function readYear(raw: string | null, thisYear: number): number {
 export function Component() {
   const { machineId = '' } = useParams();
   const user = useSessionUserOrThrow();
-  const canManage = accessTo(user.role, 'machines') === 'manage';
+  const shares = useMachineShares(machineId);
+  // The area is open to partners, but a machine only to the households that own it.
+  const canManage = accessTo(user.role, 'machines') === 'manage' && mayChangeMachine(user.role, user.partyId ?? null, shares.data);
   const seesMoney = MONEY_ROLES.includes(user.role);
   const [searchParams, setSearchParams] = useSearchParams();
   const thisYear = new Date().getFullYear();

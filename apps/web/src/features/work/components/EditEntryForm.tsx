@@ -30,10 +30,11 @@ export function EditEntryForm({ entry, operatorName, options, onSaved }: EditEnt
     },
     onSuccess: () => refreshAfterEntryChange(queryClient),
   });
+  const [initial] = useState(() => entryFormValues(entry));
   const { form, onSubmit, formError, submitting } = useServerForm({
     schema: workEntryUpdateSchema,
-    initialValues: entryFormValues(entry),
-    toPayload: (values) => entryChangePayload(values, entry.version),
+    initialValues: initial,
+    toPayload: (values) => entryChangePayload(values, initial, entry.version),
     mutation: save,
     issuePath: entryIssuePath,
     onSuccess: onSaved,
