@@ -1,19 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { DashboardDto } from '@hitchbook/shared/schemas/reports';
 import { api } from '../../../lib/api';
 
-export interface DashboardCard {
-  key: string;
-  label: string;
-  value: string;
-  hint?: string;
-}
-
-export interface Dashboard {
-  cards: DashboardCard[];
-}
+export type { DashboardCardDto as DashboardCard, DashboardChartDto as DashboardChart } from '@hitchbook/shared/schemas/reports';
 
 export function getDashboard(signal?: AbortSignal) {
-  return api.get<Dashboard>('/api/dashboard', { signal });
+  return api.get<DashboardDto>('/api/dashboard', { signal });
 }
 
 // The cards depend on who is signed in; the cache is cleared on every sign-in and sign-out.

@@ -1,10 +1,11 @@
-import { Card, Skeleton, Stack, Text } from '@mantine/core';
+import { Anchor, Card, Skeleton, Stack, Text } from '@mantine/core';
+import { Link } from 'react-router-dom';
 import type { DashboardCard } from '../api/getDashboard';
 
-export function StatCard({ card }: { card: DashboardCard }) {
+export function StatCard({ card, link }: { card: DashboardCard; link: { href: string; label: string } | null }) {
   return (
     <Card withBorder padding="lg" data-testid={`stat-${card.key}`}>
-      <Stack gap={4}>
+      <Stack gap={4} h="100%">
         <Text size="sm" c="dimmed" fw={700} tt="uppercase" style={{ letterSpacing: '0.04em' }}>
           {card.label}
         </Text>
@@ -15,6 +16,11 @@ export function StatCard({ card }: { card: DashboardCard }) {
           <Text size="sm" c="slate.7">
             {card.hint}
           </Text>
+        )}
+        {link && (
+          <Anchor component={Link} to={link.href} fw={700} mt="auto" pt="xs">
+            {link.label} →
+          </Anchor>
         )}
       </Stack>
     </Card>

@@ -1,10 +1,12 @@
-import { SimpleGrid } from '@mantine/core';
+import { SimpleGrid, Stack } from '@mantine/core';
 import { EmptyState } from '../../../components/EmptyState';
 import { PageHeader } from '../../../components/PageHeader';
 import { QueryError } from '../../../components/QueryError';
 import { useSessionUserOrThrow } from '../../../lib/auth';
 import { queryClient } from '../../../lib/queryClient';
 import { dashboardQueryOptions, useDashboard } from '../api/getDashboard';
+import { cardLink } from '../cardLinks';
+import { ChartCard } from '../components/ChartCard';
 import { StatCard, StatCardSkeleton } from '../components/StatCard';
 
 export function loader() {
@@ -36,11 +38,20 @@ export function Component() {
           Figures appear here as soon as there is work, machines or invoices for your role to see.
         </EmptyState>
       ) : (
-        <SimpleGrid cols={{ base: 1, xs: 2, lg: 4 }} spacing="md" data-testid="dashboard-cards">
-          {dashboard.data.cards.map((card) => (
-            <StatCard key={card.key} card={card} />
-          ))}
-        </SimpleGrid>
+        <Stack gap="lg">
+          <SimpleGrid cols={{ base: 1, xs: 2, lg: 4 }} spacing="md" data-testid="dashboard-cards">
+            {dashboard.data.cards.map((card) => (
+              <StatCard key={card.key} card={card} link={cardLink(card.key, user.role)} />
+            ))}
+          </SimpleGrid>
+          {dashboard.data.charts.length > 0 && (
+            <SimpleGrid cols={{ base: 1, md: 2 }} spacing="md" data-testid="dashboard-charts">
+              {dashboard.data.charts.map((chart) => (
+                <ChartCard key={chart.key} chart={chart} />
+              ))}
+            </SimpleGrid>
+          )}
+        </Stack>
       )}
     </>
   );

@@ -74,7 +74,7 @@ function ByWorkType({ report }: { report: CustomIncomeReportDto }) {
 /** What custom work brought in, by customer and by work type. */
 export function CustomIncomeSection({ report }: { report: CustomIncomeReportDto }) {
   return (
-    <Paper withBorder radius="md" p="md" data-testid="custom-income">
+    <Paper withBorder radius="md" p="md" style={{ overflow: 'hidden' }} data-testid="custom-income">
       <Title order={2} size="h4" mb="sm">
         Custom-work income: {formatMoney(report.total)}
       </Title>

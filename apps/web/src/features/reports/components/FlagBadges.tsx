@@ -5,7 +5,7 @@ import { FLAG_LABELS } from '../yearEnd';
 export function FlagBadges({ flags }: { flags: MachineRateRowDto['flags'] }) {
   if (flags.length === 0) return null;
   return (
-    <Group gap={4} wrap="nowrap">
+    <Group gap={4}>
       {flags.map((flag) => (
         <Tooltip key={flag.code} label={flag.message} multiline w={280}>
           <Badge color={flag.code === 'actual-above-estimate' ? 'clay' : 'slate'} variant="light">

@@ -10,7 +10,8 @@ function CustomRate({ row }: { row: MachineRateRowDto }) {
   if (!customRate.source) return <>—</>;
   return (
     <>
-      {[customRate.perAcre && formatRate(customRate.perAcre, 'acre'), customRate.perHour && formatRate(customRate.perHour, 'h')].filter(Boolean).join(' · ')}
+      {customRate.perAcre && <Text inherit>{formatRate(customRate.perAcre, 'acre')}</Text>}
+      {customRate.perHour && <Text inherit>{formatRate(customRate.perHour, 'h')}</Text>}
       <Text size="xs" c="dimmed">
         {customRate.source === 'invoices' ? 'from invoices' : 'neighbour sheet'}
       </Text>
@@ -21,8 +22,8 @@ function CustomRate({ row }: { row: MachineRateRowDto }) {
 /** The fleet side by side for the year; a machine's name opens its detail. */
 export function FleetTable({ rows, onOpen }: { rows: MachineRateRowDto[]; onOpen: (row: MachineRateRowDto) => void }) {
   return (
-    <Table.ScrollContainer minWidth={1080}>
-      <Table verticalSpacing="sm" striped highlightOnHover data-testid="fleet-table">
+    <Table.ScrollContainer minWidth={1000}>
+      <Table verticalSpacing="xs" fz="sm" striped highlightOnHover style={{ whiteSpace: 'nowrap' }} data-testid="fleet-table">
         <Table.Thead>
           <Table.Tr>
             <Table.Th>Machine</Table.Th>
@@ -30,11 +31,11 @@ export function FleetTable({ rows, onOpen }: { rows: MachineRateRowDto[]; onOpen
             <Table.Th ta="right">Acres</Table.Th>
             <Table.Th ta="right">Actual</Table.Th>
             <Table.Th ta="right">Estimate</Table.Th>
-            <Table.Th ta="right">Custom rate</Table.Th>
-            <Table.Th ta="right">Break-even</Table.Th>
-            <Table.Th>Flags</Table.Th>
             <Table.Th ta="right">Rate now</Table.Th>
             <Table.Th ta="right">Suggested</Table.Th>
+            <Table.Th ta="right">Custom rate</Table.Th>
+            <Table.Th ta="right">Break-even acres</Table.Th>
+            <Table.Th miw={150}>Flags</Table.Th>
           </Table.Tr>
         </Table.Thead>
         <Table.Tbody>
@@ -53,16 +54,16 @@ export function FleetTable({ rows, onOpen }: { rows: MachineRateRowDto[]; onOpen
               <Table.Td ta="right">{formatDecimal(row.acres, 1)}</Table.Td>
               <Table.Td ta="right">{rate(row.perHour?.total)}</Table.Td>
               <Table.Td ta="right">{row.estimate.available ? rate(row.estimate.perHour.total) : '—'}</Table.Td>
+              <Table.Td ta="right">{rate(row.currentRate?.perHour)}</Table.Td>
+              <Table.Td ta="right" fw={700} c="harbor.9">
+                {rate(row.suggestedRate?.perHour)}
+              </Table.Td>
               <Table.Td ta="right">
                 <CustomRate row={row} />
               </Table.Td>
-              <Table.Td ta="right">{row.breakEven.acres === null ? '—' : `${formatDecimal(row.breakEven.acres, 0)} acres`}</Table.Td>
+              <Table.Td ta="right">{row.breakEven.acres === null ? '—' : formatDecimal(row.breakEven.acres, 0)}</Table.Td>
               <Table.Td>
                 <FlagBadges flags={row.flags} />
-              </Table.Td>
-              <Table.Td ta="right">{rate(row.currentRate?.perHour)}</Table.Td>
-              <Table.Td ta="right" fw={700}>
-                {rate(row.suggestedRate?.perHour)}
               </Table.Td>
             </Table.Tr>
           ))}

@@ -36,8 +36,9 @@ export function loader({ request }: LoaderFunctionArgs) {
 }
 
 function ChartPanel({ title, hint, children }: { title: string; hint: string; children: ReactNode }) {
+  // Clipped, so a chart's hidden tooltip layer never widens the page on a phone.
   return (
-    <Paper withBorder radius="md" p="md">
+    <Paper withBorder radius="md" p="md" style={{ overflow: 'hidden' }}>
       <Title order={2} size="h4">
         {title}
       </Title>
@@ -71,7 +72,12 @@ function Fleet({ year, canAccept }: { year: number; canAccept: boolean }) {
           </Text>
           <FleetTable rows={machines} onOpen={setOpen} />
           {canAccept && acceptableMachines(machines).length > 0 && (
-            <Button leftSection={<IconTags size={18} />} onClick={() => setAccepting(true)} style={{ alignSelf: 'flex-start' }}>
+            <Button
+              leftSection={<IconTags size={18} />}
+              onClick={() => setAccepting(true)}
+              // The label wraps on a phone instead of pushing the page sideways.
+              styles={{ root: { alignSelf: 'flex-start', height: 'auto', minHeight: 44, paddingBlock: 8 }, label: { whiteSpace: 'normal' } }}
+            >
               Accept suggested rates into a new family rate sheet
             </Button>
           )}

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Alert, Badge, Button, Group, Paper, Stack, Text } from '@mantine/core';
+import { Alert, Button, Group, Paper, Stack, Text } from '@mantine/core';
 import { IconCheck } from '@tabler/icons-react';
 import { formatMoney } from '@hitchbook/shared/money';
 import type { StatementTransferDto } from '@hitchbook/shared/schemas/square-ups';
@@ -15,10 +15,13 @@ function isRecorded(t: StatementTransferDto): t is RecordedTransfer {
 function PaidNote({ transfer }: { transfer: StatementTransferDto }) {
   if (!transfer.paidOn || !transfer.method) return null;
   return (
-    <Badge color="harbor" variant="light" size="lg" leftSection={<IconCheck size={14} />}>
-      Paid {transfer.paidOn}, {METHOD_LABELS[transfer.method]}
-      {transfer.reference ? ` ${transfer.reference}` : ''}
-    </Badge>
+    <Group gap={6} wrap="nowrap" c="harbor.8" data-testid="transfer-paid">
+      <IconCheck size={18} style={{ flexShrink: 0 }} />
+      <Text size="sm" fw={700} c="harbor.8">
+        Paid {transfer.paidOn}, {METHOD_LABELS[transfer.method]}
+        {transfer.reference ? `, ${transfer.reference}` : ''}
+      </Text>
+    </Group>
   );
 }
 

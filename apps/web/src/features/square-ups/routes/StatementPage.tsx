@@ -30,7 +30,8 @@ export function loader({ params }: LoaderFunctionArgs) {
 
 function Section({ title, children, testId }: { title: string; children: ReactNode; testId?: string }) {
   return (
-    <Paper withBorder radius="md" p="md" data-testid={testId}>
+    // Clipped, so a chart's hidden tooltip layer never widens the page on a phone.
+    <Paper withBorder radius="md" p="md" style={{ overflow: 'hidden' }} data-testid={testId}>
       <Title order={2} size="h4" mb="sm">
         {title}
       </Title>
