@@ -1,3 +1,4 @@
+import { readFile } from 'node:fs/promises';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Dec } from '@hitchbook/shared/decimal';
@@ -341,11 +342,20 @@ describe('the bookkeeper', () => {
       await paid.click();
       await page.getByRole('heading', { name: 'Invoice INV-0001' }).waitFor();
       await page.getByTestId('payments').getByText('Cheque 2218').waitFor();
-      expect(await page.getByRole('button', { name: 'Download PDF' }).count()).toBe(1);
+      const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download PDF' }).click()]);
+      expect(download.suggestedFilename()).toBe('INV-0001.pdf');
+      const pdf = await readFile((await download.path())!);
+      expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
       for (const control of ['Record payment', 'Send by e-mail', 'Correct', 'Issue invoice']) {
         expect(await page.getByRole('button', { name: control }).count(), control).toBe(0);
       }
       await screenshot(page, 'invoice-paid-bookkeeper-desktop');
+
+      // The pay link in an invoice e-mail opens the staff page for someone of the outfit.
+      const invoicePath = new URL(page.url()).pathname;
+      await page.goto(`${baseUrlOrThrow()}${invoicePath.replace('/invoices/', '/pay/')}`);
+      await page.getByRole('heading', { name: 'Invoice INV-0001' }).waitFor();
+      expect(new URL(page.url()).pathname).toBe(invoicePath);
     });
   });
 

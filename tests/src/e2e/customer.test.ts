@@ -96,6 +96,8 @@ describe("the customer's own view", () => {
       await signInAndWait(page, DEMO_SIGN_INS.customer);
       await page.goto(`${baseUrlOrThrow()}/my-invoices/${invoice.id}`);
       const owed = formatMoney(invoice.balance);
+      const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download PDF' }).click()]);
+      expect(download.suggestedFilename()).toBe(`${invoice.numberLabel}.pdf`);
       await page.getByRole('button', { name: `Pay ${owed} by card` }).click();
       await page.getByLabel('Card number').fill('4000 0000 0000 0002');
       await page.getByLabel('Expiry').fill('12 / 34');

@@ -27,11 +27,18 @@ export function BalanceCard({ invoice }: { invoice: InvoiceDto }) {
   return (
     <Paper withBorder p="md" shadow="xs">
       <Stack gap="xs">
-        <Row label="Total" value={formatMoney(invoice.total)} />
-        <Row label="Paid" value={formatMoney(invoice.amountPaid)} />
-        {invoice.amountCredited !== '0.00' && <Row label="Credited" value={formatMoney(invoice.amountCredited)} />}
-        <Divider />
-        <Row label="Still to pay" value={formatMoney(invoice.balance)} strong testId="invoice-balance" />
+        {invoice.kind === 'credit-note' ? (
+          // A credit note is money off another invoice: there is nothing to pay on it.
+          <Row label="Credit" value={formatMoney(invoice.total)} strong />
+        ) : (
+          <>
+            <Row label="Total" value={formatMoney(invoice.total)} />
+            <Row label="Paid" value={formatMoney(invoice.amountPaid)} />
+            {invoice.amountCredited !== '0.00' && <Row label="Credited" value={formatMoney(invoice.amountCredited)} />}
+            <Divider />
+            <Row label="Still to pay" value={formatMoney(invoice.balance)} strong testId="invoice-balance" />
+          </>
+        )}
         {invoice.dueDate && canPay(invoice) && (
           <Text size="sm" c={invoice.state === 'overdue' ? 'red.8' : 'dimmed'} fw={invoice.state === 'overdue' ? 700 : undefined}>
             {invoice.state === 'overdue' ? 'Was due' : 'Due'} {formatDay(invoice.dueDate)}

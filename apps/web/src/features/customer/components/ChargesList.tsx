@@ -19,11 +19,11 @@ const trimmed = (value: string) => formatDecimal(value, new Decimal(value).decim
 const rateText = (rate: string) => `$${formatDecimal(rate, Math.max(2, new Decimal(rate).decimalPlaces()))}`;
 
 /** The invoice's lines as a list that reads the same on a phone as on a desk. */
-export function ChargesList({ lines }: { lines: InvoiceLineDto[] }) {
+export function ChargesList({ lines, title }: { lines: InvoiceLineDto[]; title: string }) {
   return (
     <Paper withBorder p="md">
       <Title order={2} size="h4" mb="xs">
-        What you are billed for
+        {title}
       </Title>
       <Stack gap={0}>
         {lines.map((line) => {

@@ -44,7 +44,7 @@ export function MyInvoiceView({ invoice }: { invoice: InvoiceDto }) {
         title={`${invoice.kind === 'credit-note' ? 'Credit note' : 'Invoice'} ${invoice.numberLabel}`}
         description={
           <Group gap="xs" component="span">
-            <StateBadge state={invoice.state} />
+            <StateBadge state={invoice.state} kind={invoice.kind} />
             <span>
               From {invoice.issuer.name}
               {invoice.issueDate ? `, ${formatDay(invoice.issueDate)}` : ''}
@@ -63,7 +63,7 @@ export function MyInvoiceView({ invoice }: { invoice: InvoiceDto }) {
         <Grid.Col span={{ base: 12, md: 8 }} order={{ base: 2, md: 1 }}>
           <Stack gap="lg">
             <WorkEntriesTable entries={invoice.entries} />
-            <ChargesList lines={invoice.lines} />
+            <ChargesList lines={invoice.lines} title={invoice.kind === 'credit-note' ? 'What is credited' : 'What you are billed for'} />
             {invoice.notes && invoice.kind === 'invoice' && (
               <Text size="sm" style={{ whiteSpace: 'pre-wrap' }}>
                 {invoice.notes}

@@ -40,7 +40,7 @@ const columns: MRT_ColumnDef<InvoiceSummaryDto>[] = [
     ),
     ...money,
   },
-  { accessorKey: 'state', header: 'State', enableSorting: false, Cell: ({ row }) => <StateBadge state={row.original.state} size="md" /> },
+  { accessorKey: 'state', header: 'State', enableSorting: false, Cell: ({ row }) => <StateBadge state={row.original.state} kind={row.original.kind} size="md" /> },
 ];
 
 /** On a phone: the invoice with its state and date, and what is left to pay. */
@@ -48,6 +48,7 @@ const phoneColumns: MRT_ColumnDef<InvoiceSummaryDto>[] = [
   {
     id: 'number',
     header: 'Invoice',
+    size: 130,
     accessorFn: (i) => i.numberLabel,
     Cell: ({ row }) => (
       <Stack gap={4} align="flex-start">
@@ -57,15 +58,16 @@ const phoneColumns: MRT_ColumnDef<InvoiceSummaryDto>[] = [
         <Text size="xs" c="dimmed">
           {row.original.issueDate ? formatDay(row.original.issueDate) : ''}
         </Text>
-        <StateBadge state={row.original.state} size="md" />
+        <StateBadge state={row.original.state} kind={row.original.kind} size="md" />
       </Stack>
     ),
   },
-  { id: 'total', header: 'Total', accessorFn: (i) => i.total, Cell: ({ row }) => formatMoney(row.original.total), ...money },
+  { id: 'total', header: 'Total', size: 100, accessorFn: (i) => i.total, Cell: ({ row }) => formatMoney(row.original.total), ...money },
   {
     accessorKey: 'balance',
     header: 'To pay',
     enableSorting: false,
+    size: 100,
     Cell: ({ row }) => (
       <Text size="sm" fw={700} c={row.original.state === 'overdue' ? 'red.8' : undefined}>
         {formatMoney(row.original.balance)}

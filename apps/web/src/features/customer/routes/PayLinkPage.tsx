@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useState, type ReactNode } from 'react';
 import { Button, Group, Loader, Paper, Skeleton, Stack, Text, ThemeIcon, Title } from '@mantine/core';
 import { IconCircleCheck, IconClockHour4, IconCreditCardOff } from '@tabler/icons-react';
 import { Link, redirect, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
@@ -42,7 +42,7 @@ function useWaited(running: boolean): number {
   return now - startedAt;
 }
 
-function Outcome({ icon, color, title, children }: { icon: React.ReactNode; color: string; title: string; children: React.ReactNode }) {
+function Outcome({ icon, color, title, children }: { icon: ReactNode; color: string; title: string; children: ReactNode }) {
   return (
     <Paper withBorder p="xl" maw={560} mx="auto" mt="lg" data-testid="payment-outcome">
       <Stack align="center" ta="center" gap="md">

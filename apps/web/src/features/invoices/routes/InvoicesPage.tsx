@@ -4,7 +4,7 @@ import { IconAlertTriangle, IconPlus } from '@tabler/icons-react';
 import type { MRT_ColumnDef } from 'mantine-react-table';
 import { Link } from 'react-router-dom';
 import { formatMoney } from '@hitchbook/shared/money';
-import { INVOICE_STATES, type InvoiceSummaryDto } from '@hitchbook/shared/schemas/invoices';
+import { INVOICE_STATES, type InvoiceState, type InvoiceSummaryDto } from '@hitchbook/shared/schemas/invoices';
 import { EmptyState } from '../../../components/EmptyState';
 import { PageHeader } from '../../../components/PageHeader';
 import { ServerTable } from '../../../components/ServerTable';
@@ -79,11 +79,15 @@ const columns: MRT_ColumnDef<InvoiceSummaryDto>[] = [
   { accessorKey: 'state', header: 'State', enableSorting: false, size: 130, Cell: ({ row }) => <InvoiceStateBadge state={row.original.state} size="md" /> },
 ];
 
+/** The states in which a due date still matters to whoever reads the list. */
+const OPEN_STATES: readonly InvoiceState[] = ['issued', 'partly-paid', 'overdue'];
+
 /** On a phone the table keeps three columns that fit: what it is, whom and when it is due, what is still owed. */
 const phoneColumns: MRT_ColumnDef<InvoiceSummaryDto>[] = [
   {
     id: 'number',
     header: 'Number',
+    size: 110,
     accessorFn: (i) => i.numberLabel ?? 'Draft',
     Cell: ({ row }) => (
       <Stack gap={4} align="flex-start">
@@ -98,10 +102,11 @@ const phoneColumns: MRT_ColumnDef<InvoiceSummaryDto>[] = [
     accessorKey: 'partyName',
     header: 'Customer',
     enableSorting: false,
+    size: 140,
     Cell: ({ row }) => (
       <Stack gap={2}>
         <Text size="sm">{row.original.partyName}</Text>
-        {row.original.dueDate && (
+        {row.original.dueDate && OPEN_STATES.includes(row.original.state) && (
           <Text size="xs" c={row.original.state === 'overdue' ? 'red.8' : 'dimmed'} fw={row.original.state === 'overdue' ? 700 : undefined}>
             Due {formatDay(row.original.dueDate)}
           </Text>
@@ -113,6 +118,7 @@ const phoneColumns: MRT_ColumnDef<InvoiceSummaryDto>[] = [
     accessorKey: 'balance',
     header: 'Balance',
     enableSorting: false,
+    size: 100,
     Cell: ({ row }) => (
       <Text fw={700} size="sm" style={{ whiteSpace: 'nowrap' }}>
         {row.original.status === 'issued' ? formatMoney(row.original.balance) : '—'}

@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import { Alert, Button, Group, Paper, SegmentedControl, Select, SimpleGrid, Skeleton, Stack, Switch, Text, TextInput, Textarea, Title } from '@mantine/core';
 import type { UseFormReturnType } from '@mantine/form';
 import { IconInfoCircle } from '@tabler/icons-react';
@@ -37,7 +38,7 @@ function issuePath(path: string): string {
   return row ? `lines.${row[1]}.workTypeId` : path;
 }
 
-function Section({ title, children }: { title: string; children: React.ReactNode }) {
+function Section({ title, children }: { title: string; children: ReactNode }) {
   return (
     <Paper withBorder p="md">
       <Title order={2} size="h4" mb="md">
