@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { ActionIcon, Anchor, Badge, Button, Group, SegmentedControl, Select, Stack, Text, Tooltip } from '@mantine/core';
 import { IconArchive, IconArchiveOff, IconPencil, IconPlus, IconRoad, IconX } from '@tabler/icons-react';
 import type { MRT_ColumnDef } from 'mantine-react-table';
+import { useMediaQuery } from '@mantine/hooks';
 import { Link } from 'react-router-dom';
 import { FIELD_KINDS, type FieldDto, type FieldKind } from '@hitchbook/shared/schemas/fields';
 import { EmptyState } from '../../../components/EmptyState';
@@ -93,6 +94,65 @@ function columnsFor(canManage: boolean, onFarmLabel: (label: string) => void): M
   ];
 }
 
+interface CompactFieldProps {
+  field: FieldDto;
+  canManage: boolean;
+  onFarmLabel: (label: string) => void;
+  onArchive: (field: FieldDto) => void;
+}
+
+/** On a phone each field is one cell with its figures and buttons, so nothing sits off screen. */
+function CompactField({ field, canManage, onFarmLabel, onArchive }: CompactFieldProps) {
+  return (
+    <Stack gap={4} data-testid="field-card">
+      <Group justify="space-between" wrap="nowrap" align="flex-start">
+        <Stack gap={2}>
+          {canManage ? (
+            <Anchor component={Link} to={paths.editField(field.id)} fw={700} size="lg">
+              {field.name}
+            </Anchor>
+          ) : (
+            <Text fw={700} size="lg">
+              {field.name}
+            </Text>
+          )}
+          <Group gap={6}>
+            <Badge variant="light" color={field.kind === 'roadside' ? 'clay' : 'harbor'}>
+              {FIELD_KIND_LABELS[field.kind]}
+            </Badge>
+            {field.archived && (
+              <Badge variant="outline" color="slate">
+                Archived
+              </Badge>
+            )}
+          </Group>
+        </Stack>
+        {canManage && (
+          <ActionIcon variant="subtle" color={field.archived ? undefined : 'clay'} size="xl" aria-label={`${field.archived ? 'Bring back' : 'Archive'} ${field.name}`} onClick={() => onArchive(field)}>
+            {field.archived ? <IconArchiveOff /> : <IconArchive />}
+          </ActionIcon>
+        )}
+      </Group>
+      <Text fw={600} style={{ fontVariantNumeric: 'tabular-nums' }}>
+        {formatDecimal(field.acres, 2)} ac{field.boundaryAcres ? ` · boundary ${formatDecimal(field.boundaryAcres, 2)} ac` : ''}
+      </Text>
+      <Group gap={6}>
+        {field.farmLabel && (
+          <Anchor component="button" type="button" size="sm" ta="left" onClick={() => onFarmLabel(field.farmLabel!)}>
+            {field.farmLabel}
+          </Anchor>
+        )}
+        {field.ownerName && (
+          <Text size="sm" c="dimmed">
+            {field.farmLabel ? '· ' : ''}
+            {field.ownerName}
+          </Text>
+        )}
+      </Group>
+    </Stack>
+  );
+}
+
 export function Component() {
   const user = useSessionUserOrThrow();
   const canManage = accessTo(user.role, 'fields') === 'manage';
@@ -105,6 +165,15 @@ export function Component() {
   const landowners = useLandowners();
   const [archiving, setArchiving] = useState<FieldDto | null>(null);
   const filtered = Boolean(params.q || kind || farmLabel || ownerPartyId || archived !== 'false');
+  const phone = useMediaQuery('(max-width: 48em)') ?? false;
+  const pickFarm = (label: string) => update({ farmLabel: label });
+  const compactColumns: MRT_ColumnDef<FieldDto>[] = [
+    {
+      accessorKey: 'name',
+      header: 'Field',
+      Cell: ({ row }) => <CompactField field={row.original} canManage={canManage} onFarmLabel={pickFarm} onArchive={setArchiving} />,
+    },
+  ];
 
   const toolbar = (
     <>
@@ -167,7 +236,7 @@ export function Component() {
         }
       />
       <ServerTable
-        columns={columnsFor(canManage, (label) => update({ farmLabel: label }))}
+        columns={phone ? compactColumns : columnsFor(canManage, pickFarm)}
         query={fields}
         params={params}
         onParamsChange={update}
@@ -175,7 +244,7 @@ export function Component() {
         searchPlaceholder="Search by name or road"
         toolbar={toolbar}
         rowActions={
-          canManage
+          canManage && !phone
             ? (field) => (
                 <Group gap={4} wrap="nowrap">
                   <Tooltip label={`Edit ${field.name}`}>

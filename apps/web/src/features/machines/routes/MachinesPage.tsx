@@ -1,4 +1,5 @@
-import { Anchor, Badge, Button, Select, Stack, Text } from '@mantine/core';
+import { Anchor, Badge, Button, Group, Select, Stack, Text } from '@mantine/core';
+import { useMediaQuery } from '@mantine/hooks';
 import { IconPlus } from '@tabler/icons-react';
 import type { MRT_ColumnDef } from 'mantine-react-table';
 import { Link } from 'react-router-dom';
@@ -58,6 +59,34 @@ const columns: MRT_ColumnDef<MachineDto>[] = [
   { id: 'hours', header: 'Hour meter', enableSorting: false, Cell: ({ row }) => <MachineHours machineId={row.original.id} /> },
 ];
 
+/** On a phone each machine is one cell, so nothing a person needs sits off screen. */
+const compactColumns: MRT_ColumnDef<MachineDto>[] = [
+  {
+    accessorKey: 'name',
+    header: 'Machine',
+    Cell: ({ row }) => {
+      const m = row.original;
+      return (
+        <Stack gap={4} data-testid="machine-card">
+          <Group justify="space-between" wrap="nowrap" align="flex-start">
+            <Anchor component={Link} to={paths.machine(m.id)} fw={700} size="lg">
+              {m.name}
+            </Anchor>
+            <Badge variant="light" color={STATUS_COLORS[m.status]}>
+              {STATUS_LABELS[m.status]}
+            </Badge>
+          </Group>
+          <Text size="sm" c="dimmed">
+            {m.classLabel} · {KIND_LABELS[m.kind]}
+          </Text>
+          <OwnersList owners={m.owners} />
+          {m.kind !== 'implement' && <MachineHours machineId={m.id} />}
+        </Stack>
+      );
+    },
+  },
+];
+
 export function Component() {
   const user = useSessionUserOrThrow();
   const canManage = accessTo(user.role, 'machines') === 'manage';
@@ -67,6 +96,7 @@ export function Component() {
   const classId = oneOf(CLASS_IDS, searchParams.get('classId'));
   const machines = useMachines({ ...params, status, kind, classId });
   const filtered = Boolean(params.q || status || kind || classId);
+  const phone = useMediaQuery('(max-width: 48em)') ?? false;
 
   const toolbar = (
     <>
@@ -114,7 +144,7 @@ export function Component() {
         }
       />
       <ServerTable
-        columns={columns}
+        columns={phone ? compactColumns : columns}
         query={machines}
         params={params}
         onParamsChange={update}
