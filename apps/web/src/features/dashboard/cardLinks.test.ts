@@ -11,6 +11,12 @@ describe('dashboard card links', () => {
     expect(cardLink('square-up-balance', 'bookkeeper')?.href).toBe('/square-ups');
   });
 
+  it('sends staff to the overdue invoices and a customer to their own', () => {
+    expect(cardLink('overdue-invoices', 'bookkeeper')?.href).toBe('/invoices?state=overdue');
+    expect(cardLink('open-invoices', 'customer')?.href).toBe('/my-invoices');
+    expect(cardLink('overdue-invoices', 'customer')).toBeNull();
+  });
+
   it('gives no link into an area the role cannot open', () => {
     // A partner sees how many people have a sign-in, but the users area is the owner's.
     expect(cardLink('members', 'partner')).toBeNull();

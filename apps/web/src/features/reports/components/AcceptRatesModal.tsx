@@ -1,8 +1,10 @@
 import { useState } from 'react';
-import { Alert, Button, Checkbox, Group, Modal, Stack, Table, Text } from '@mantine/core';
+import { Alert, Anchor, Button, Checkbox, Group, Modal, Stack, Table, Text } from '@mantine/core';
 import { useMediaQuery } from '@mantine/hooks';
+import { Link } from 'react-router-dom';
 import type { AcceptedRatesDto, MachineRateRowDto } from '@hitchbook/shared/schemas/reports';
 import { formatRate } from '../../../lib/money';
+import { paths } from '../../../lib/paths';
 import { useAcceptSuggestedRates } from '../api/acceptSuggestedRates';
 import { acceptableMachines } from '../yearEnd';
 
@@ -14,6 +16,9 @@ function Accepted({ result, onClose }: { result: AcceptedRatesDto; onClose: () =
         {result.machineRates.length === 1 ? 'rate' : 'rates'}; its other rates and terms are copied from the sheet in force.
       </Alert>
       <Group justify="flex-end">
+        <Anchor component={Link} to={paths.rateSheet(result.rateSheetId)}>
+          Open the new rate sheet
+        </Anchor>
         <Button onClick={onClose}>Done</Button>
       </Group>
     </Stack>
@@ -32,8 +37,9 @@ function Picker({ rows, year, onClose }: { rows: MachineRateRowDto[]; year: numb
         A new family rate sheet starting 1 January {year + 1} gets the suggested machine-hour rates of the machines you pick;
         the rates of the others, and every other rate and term, are copied from the sheet in force now.
       </Text>
-      <Table.ScrollContainer minWidth={420}>
-        <Table verticalSpacing={6}>
+      {/* Narrow enough that both rates stay in view on a phone. */}
+      <Table.ScrollContainer minWidth={330}>
+        <Table verticalSpacing={6} horizontalSpacing="xs">
           <Table.Thead>
             <Table.Tr>
               <Table.Th>

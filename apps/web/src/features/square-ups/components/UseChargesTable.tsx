@@ -1,7 +1,9 @@
-import { Table, Text } from '@mantine/core';
+import { Anchor, Table, Text } from '@mantine/core';
+import { Link } from 'react-router-dom';
 import { formatMoney } from '@hitchbook/shared/money';
 import type { StatementUseChargeDto } from '@hitchbook/shared/schemas/square-ups';
 import { formatDecimal, formatRate } from '../../../lib/money';
+import { paths } from '../../../lib/paths';
 import type { DrillDown } from './LinesDrawer';
 import { FigureButton } from './FigureButton';
 
@@ -31,9 +33,15 @@ export function UseChargesTable({ charges, households, onDrill }: { charges: Sta
                 <Table.Td ta="right">{formatDecimal(c.hours, 1)}</Table.Td>
                 <Table.Td ta="right" style={{ whiteSpace: 'nowrap' }}>
                   {formatRate(c.ratePerHour, 'h')}
-                  <Text size="xs" c="dimmed">
-                    {c.rateSource === 'rate-sheet' ? 'sheet rate' : 'actual cost'}
-                  </Text>
+                  {c.rateSheetId ? (
+                    <Anchor component={Link} to={paths.rateSheet(c.rateSheetId)} size="xs" display="block">
+                      sheet rate
+                    </Anchor>
+                  ) : (
+                    <Text size="xs" c="dimmed">
+                      actual cost
+                    </Text>
+                  )}
                 </Table.Td>
                 <Table.Td ta="right">
                   <FigureButton

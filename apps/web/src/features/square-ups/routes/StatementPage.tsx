@@ -40,7 +40,7 @@ function Section({ title, children, testId }: { title: string; children: ReactNo
   );
 }
 
-function Statement({ statement, canManage }: { statement: SquareUpStatementDto; canManage: boolean }) {
+function Statement({ statement, canManage, canReviewWork }: { statement: SquareUpStatementDto; canManage: boolean; canReviewWork: boolean }) {
   const { squareUp } = statement;
   const [drill, setDrill] = useState<DrillDown | null>(null);
   const [closing, setClosing] = useState(false);
@@ -87,6 +87,11 @@ function Statement({ statement, canManage }: { statement: SquareUpStatementDto; 
                 <List.Item key={`${w.code}-${i}`}>{w.message}</List.Item>
               ))}
             </List>
+            {statement.pendingEntries > 0 && canReviewWork && (
+              <Anchor component={Link} to={paths.work.entries({ state: 'submitted', dateFrom: squareUp.periodFrom, dateTo: squareUp.periodTo })} size="sm" fw={700} mt="xs" display="inline-block">
+                Review the waiting entries →
+              </Anchor>
+            )}
           </Alert>
         )}
         <Section title="Households" testId="households">
@@ -147,7 +152,7 @@ export function Component() {
       ) : statement.isPending ? (
         <Skeleton h={400} />
       ) : (
-        <Statement statement={statement.data} canManage={canManage} />
+        <Statement statement={statement.data} canManage={canManage} canReviewWork={accessTo(user.role, 'work') === 'manage'} />
       )}
     </>
   );
