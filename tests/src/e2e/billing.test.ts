@@ -89,9 +89,22 @@ function printedDay(iso: string): string {
   return new Date(`${iso}T12:00:00`).toLocaleDateString('en-US', { month: 'short', day: 'numeric', year: 'numeric' });
 }
 
+/** The option list re-renders while its data arrives, so a click can land on a detached node; reopen and retry. */
 async function pickOption(page: Page, label: string, option: string) {
-  await page.getByRole('textbox', { name: label, exact: true }).click();
-  await page.getByRole('option', { name: option, exact: true }).click();
+  const box = page.getByRole('textbox', { name: label, exact: true });
+  for (let attempt = 1; ; attempt++) {
+    await box.click();
+    try {
+      await page.getByRole('option', { name: option, exact: true }).click({ timeout: 10000 });
+    } catch (err) {
+      if (attempt >= 3) throw err;
+      await page.keyboard.press('Escape');
+      continue;
+    }
+    // The choice only counts once the box shows it.
+    if ((await box.inputValue()) === option) return;
+    if (attempt >= 3) throw new Error(`${label} shows "${await box.inputValue()}" instead of "${option}"`);
+  }
 }
 
 /** Drafts an invoice for the neighbour's work on one day through the New invoice screen. */
