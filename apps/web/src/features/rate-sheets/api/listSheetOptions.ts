@@ -8,6 +8,7 @@ export interface WorkTypeOption {
   id: string;
   name: string;
   defaultUnit: WorkUnit;
+  archived: boolean;
 }
 
 export interface MachineOption {
@@ -28,7 +29,8 @@ export interface PartyOption {
 export function workTypeOptionsQueryOptions() {
   return queryOptions({
     queryKey: ['work-types', 'options'],
-    queryFn: ({ signal }) => api.get<Page<WorkTypeOption>>('/api/work-types', { query: { pageSize: 200 }, signal }),
+    // Archived ones too, so a sheet that still prices one shows it by name.
+    queryFn: ({ signal }) => api.get<Page<WorkTypeOption>>('/api/work-types', { query: { pageSize: 200, archived: 'all' }, signal }),
     select: (page) => page.items,
   });
 }

@@ -20,7 +20,7 @@ const chargeOptions = CHARGE_TYPES.map((c) => ({ value: c, label: CHARGE_TYPE_LA
 /** One row per work type, unit and charge type; on a phone each row's fields stack with their labels. */
 export function RateLinesEditor({ form, workTypes }: RateLinesEditorProps) {
   const phone = useMediaQuery('(max-width: 62em)');
-  const workTypeOptions = workTypes.map((t) => ({ value: t.id, label: t.name }));
+  const workTypeOptions = workTypes.map((t) => ({ value: t.id, label: t.archived ? `${t.name} (archived)` : t.name }));
   const lines = form.getValues().lines;
 
   return (
