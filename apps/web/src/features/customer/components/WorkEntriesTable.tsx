@@ -28,14 +28,14 @@ export function WorkEntriesTable({ entries }: { entries: InvoiceEntryDto[] }) {
       </Title>
       <Stack gap={0}>
         {entries.map((entry) => (
-          <Group key={entry.id} justify="space-between" align="flex-start" gap="sm" py="sm" style={{ borderBottom: '1px solid var(--mantine-color-slate-2)' }}>
+          <Group key={entry.id} justify="space-between" align="flex-start" gap="sm" wrap="nowrap" py="sm" style={{ borderBottom: '1px solid var(--mantine-color-slate-2)' }}>
             <Stack gap={2} miw={0}>
               <Text fw={600}>{entry.workTypeName}</Text>
               <Text size="sm" c="dimmed">
                 {formatDay(entry.workDate)} · {entry.fieldName}
               </Text>
             </Stack>
-            <Text size="sm" fw={600} ta="right">
+            <Text size="sm" fw={600} ta="right" style={{ whiteSpace: 'nowrap' }}>
               {quantitiesOf(entry)}
             </Text>
           </Group>
