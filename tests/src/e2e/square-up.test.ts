@@ -54,7 +54,8 @@ describe('square-up statement', () => {
       const positive = owed.filter((c) => c > 0n).reduce((a, b) => a + b, 0n);
       expect(moved.reduce((a, b) => a + b, 0n)).toBe(positive);
 
-      expect(await page.locator('.recharts-bar-rectangle').count()).toBe(3);
+      // The chart is a lazy chunk that draws after the table: wait for its bars before counting them.
+      await expect.poll(() => page.locator('.recharts-bar-rectangle').count(), { timeout: 20000 }).toBe(3);
       expect(await page.getByRole('button', { name: 'Close period' }).isVisible()).toBe(true);
       await screenshot(page, 'square-up-partner-desktop');
 
