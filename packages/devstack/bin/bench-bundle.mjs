@@ -1,0 +1,127 @@
+#!/usr/bin/env node
+// The web bundle figure of the benchmark: gzip bytes of the JavaScript the sign-in page and the cab
+// work-entry form need before they can render, against a bare React + Mantine page built the same way.
+//
+// Measured from the Vite manifest, not by loading the pages in a browser: a page is the entry chunk, the
+// lazy modules of its route chain and every chunk those import statically (Vite modulepreloads exactly
+// these before the route renders). That needs no API, database or browser, gives the same bytes on every
+// run, and names the chunks, so a regression points at its cause. Chunks a page imports only after it has
+// rendered (a lazily drawn chart, the offline queue) are left out on purpose: they do not delay the form.
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { gzipSync } from 'node:zlib';
+import { inRepo } from '../lib/paths.mjs';
+
+const WEB_ROOT = inRepo('apps/web');
+const BARE_ROOT = inRepo('packages/devstack/bench-bare');
+
+/** Each page's route chain, outermost first, as source paths in apps/web (the manifest's keys). */
+export const PAGES = {
+  signIn: ['src/app/layout/PublicLayout.tsx', 'src/features/auth/routes/SignInPage.tsx'],
+  cabForm: ['src/app/layout/AppLayout.tsx', 'src/features/work/routes/LogWorkPage.tsx'],
+};
+
+/** The chunk files a page loads: the entry, the lazy route modules and their static imports. */
+export function chunksOf(manifest, routeChain = []) {
+  const entries = Object.keys(manifest).filter((key) => manifest[key].isEntry);
+  if (entries.length !== 1) throw new Error(`expected one entry in the Vite manifest, found ${entries.length}`);
+  const last = routeChain.at(-1);
+  if (last && !manifest[last]) throw new Error(`${last} is not a chunk of its own in the Vite manifest`);
+  // A layout that is part of the entry has no manifest key of its own; the entry already counts it.
+  const roots = [entries[0], ...routeChain.filter((key) => manifest[key])];
+  const seen = new Set();
+  const pending = [...roots];
+  while (pending.length > 0) {
+    const key = pending.pop();
+    if (seen.has(key)) continue;
+    seen.add(key);
+    pending.push(...(manifest[key].imports ?? []));
+  }
+  return [...seen].map((key) => manifest[key].file).filter((file) => file.endsWith('.js'));
+}
+
+function gzipBytes(outDir, files) {
+  return files.reduce((sum, file) => sum + gzipSync(readFileSync(join(outDir, file))).length, 0);
+}
+
+function readManifest(outDir) {
+  return JSON.parse(readFileSync(join(outDir, '.vite', 'manifest.json'), 'utf8'));
+}
+
+async function viteBuild(root, outDir, extra) {
+  const { build } = await import('vite');
+  await build({
+    root,
+    mode: 'production',
+    logLevel: 'warn',
+    ...extra,
+    build: { outDir, emptyOutDir: true, manifest: true, sourcemap: true, ...extra.build },
+  });
+}
+
+/** Builds the web app and the bare page into a scratch folder and returns gzip bytes per page. */
+export async function measureBundles({ details = false } = {}) {
+  const scratch = mkdtempSync(join(tmpdir(), 'hitchbook-bundle-'));
+  try {
+    const appOut = join(scratch, 'web');
+    const bareOut = join(scratch, 'bare');
+    await viteBuild(WEB_ROOT, appOut, { configFile: join(WEB_ROOT, 'vite.config.ts') });
+    const react = (await import('@vitejs/plugin-react')).default;
+    await viteBuild(BARE_ROOT, bareOut, { configFile: false, plugins: [react()] });
+
+    const appManifest = readManifest(appOut);
+    const pages = Object.fromEntries(Object.entries(PAGES).map(([name, chain]) => [name, chunksOf(appManifest, chain)]));
+    const bareChunks = chunksOf(readManifest(bareOut));
+    const result = {
+      signIn: gzipBytes(appOut, pages.signIn),
+      cabForm: gzipBytes(appOut, pages.cabForm),
+      bare: gzipBytes(bareOut, bareChunks),
+    };
+    if (!details) return result;
+    const perChunk = (outDir, files) =>
+      files.map((file) => ({ file, gzip: gzipBytes(outDir, [file]) })).sort((a, b) => b.gzip - a.gzip);
+    return {
+      ...result,
+      chunks: {
+        signIn: perChunk(appOut, pages.signIn),
+        cabForm: perChunk(appOut, pages.cabForm),
+        bare: perChunk(bareOut, bareChunks),
+      },
+    };
+  } finally {
+    rmSync(scratch, { recursive: true, force: true });
+  }
+}
+
+const kb = (bytes) => `${(bytes / 1024).toFixed(1)} KiB`;
+
+function printTable({ signIn, cabForm, bare, chunks }, { verbose }) {
+  console.log('Web bundle: gzip JavaScript loaded before the page renders');
+  console.log(`  ${'page'.padEnd(26)} ${'gzip'.padStart(10)}  ratio to bare`);
+  for (const [label, bytes] of [
+    ['bare React + Mantine', bare],
+    ['sign-in', signIn],
+    ['cab work-entry form', cabForm],
+  ]) {
+    console.log(`  ${label.padEnd(26)} ${kb(bytes).padStart(10)}  ${(bytes / bare).toFixed(2)}x`);
+  }
+  console.log('  budget: sign-in and cab form <= 1.30x');
+  if (!verbose) return;
+  for (const [page, list] of Object.entries(chunks)) {
+    console.log(`\n  ${page}:`);
+    for (const { file, gzip } of list) console.log(`    ${kb(gzip).padStart(10)}  ${file}`);
+  }
+}
+
+if (process.argv[1] === fileURLToPath(import.meta.url)) {
+  const verbose = process.argv.includes('--chunks');
+  measureBundles({ details: true }).then(
+    (figures) => printTable(figures, { verbose }),
+    (error) => {
+      console.error(`✗ ${error.message}`);
+      process.exit(1);
+    },
+  );
+}
