@@ -1,11 +1,12 @@
 import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
+import { pwaPlugin } from './pwa.config';
 
 const apiPort = process.env.API_PORT ?? '3001';
 const port = Number(process.env.PORT ?? 3000);
 
 export default defineConfig({
-  plugins: [react()],
+  plugins: [react(), pwaPlugin()],
   server: {
     host: '127.0.0.1',
     port,

@@ -8,6 +8,7 @@ import 'mantine-react-table/styles.css';
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { App } from './app/App';
+import { registerServiceWorker } from './features/offline/serviceWorker';
 
 const container = document.getElementById('root');
 if (!container) throw new Error('index.html has no #root element.');
@@ -17,3 +18,5 @@ createRoot(container).render(
     <App />
   </StrictMode>,
 );
+
+registerServiceWorker();

@@ -1,0 +1,60 @@
+import { VitePWA } from 'vite-plugin-pwa';
+
+/**
+ * The cab form's reads, kept for a phone without signal: the pickers (machines, fields, work
+ * types, parties, members) and each machine's last meter reading. The web app deletes this cache
+ * on sign-out and whenever a different person signs in, so one person's rows never serve another.
+ */
+export const ENTRY_DATA_CACHE = 'hitchbook-entry-data';
+
+export function pwaPlugin() {
+  return VitePWA({
+    registerType: 'autoUpdate',
+    injectRegister: false,
+    manifestFilename: 'manifest.webmanifest',
+    includeAssets: ['favicon.svg', 'icons/apple-touch-icon.png'],
+    manifest: {
+      name: 'Hitchbook',
+      short_name: 'Hitchbook',
+      description: 'Log machine and operator time in the cab, with or without signal.',
+      start_url: '/',
+      scope: '/',
+      display: 'standalone',
+      orientation: 'portrait',
+      background_color: '#f3f5f6',
+      theme_color: '#1f4f57',
+      icons: [
+        { src: '/icons/icon-192.png', sizes: '192x192', type: 'image/png' },
+        { src: '/icons/icon-512.png', sizes: '512x512', type: 'image/png' },
+        { src: '/icons/icon-maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+        { src: '/icons/icon.svg', sizes: 'any', type: 'image/svg+xml' },
+      ],
+    },
+    workbox: {
+      globPatterns: ['**/*.{js,css,html,svg,png,woff2,webmanifest}'],
+      // Source maps and the largest charting chunks stay out of the size limit's way, not the shell.
+      maximumFileSizeToCacheInBytes: 4 * 1024 * 1024,
+      navigateFallback: '/index.html',
+      navigateFallbackDenylist: [/^\/api(\/|$)/],
+      clientsClaim: true,
+      skipWaiting: true,
+      cleanupOutdatedCaches: true,
+      runtimeCaching: [
+        {
+          urlPattern: ({ url, request, sameOrigin }) =>
+            sameOrigin &&
+            request.method === 'GET' &&
+            /^\/api\/(machines|fields|work-types|parties|users)$|^\/api\/machines\/[^/]+\/meter-readings$/.test(url.pathname),
+          handler: 'NetworkFirst',
+          options: {
+            cacheName: ENTRY_DATA_CACHE,
+            // A field edge with one bar of signal: fall back to the kept copy rather than wait.
+            networkTimeoutSeconds: 5,
+            cacheableResponse: { statuses: [200] },
+            expiration: { maxEntries: 300, maxAgeSeconds: 30 * 24 * 60 * 60 },
+          },
+        },
+      ],
+    },
+  });
+}
