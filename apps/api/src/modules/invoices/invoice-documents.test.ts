@@ -72,6 +72,20 @@ describe('invoice PDF', () => {
     }
   });
 
+  it('prints names with Latin Extended letters as letters, not as missing glyphs', async () => {
+    expect(existsSync('/usr/bin/pdftotext'), 'npm test installs poppler-utils for this check').toBe(true);
+    const name = 'Dvořák & Łukasz Müller-Šimek';
+    await t.dbh.db.update(parties).set({ name, address: 'Příčná 7, Żółkiewka' }).where(eq(parties.id, neighbour));
+    try {
+      const invoice = await issuedInvoice(t, '2025-04-10');
+      const text = textOf((await download(invoice.id, tokens.owner)).body as Buffer);
+      expect(text).toContain(name);
+      expect(text).toContain('Příčná 7, Żółkiewka');
+    } finally {
+      await t.dbh.db.update(parties).set({ name: 'Marisol Brandvold', address: '2870 Pike Hollow Road' }).where(eq(parties.id, neighbour));
+    }
+  });
+
   it('prints a credit note with the invoice it credits', async () => {
     const invoice = await issuedInvoice(t, '2025-04-08');
     const note = await t.http().post(`/api/invoices/${invoice.id}/credit-notes`).set(bearer(tokens.owner)).send({ reason: 'Rain stopped the work' });

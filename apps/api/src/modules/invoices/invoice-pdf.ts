@@ -1,13 +1,9 @@
-import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
 import { Dec } from '@hitchbook/shared/decimal';
 import { formatMoney } from '@hitchbook/shared/money';
 import type { InvoiceDto, InvoiceLineDto } from '@hitchbook/shared/schemas/invoices';
+import { LATO_BOLD, LATO_REGULAR } from '../../common/pdf/lato.js';
 
-// The .woff files, not .woff2: fontkit's subsetter breaks on composite accented glyphs in woff2.
-const require = createRequire(import.meta.url);
-const LATO = require.resolve('@fontsource/lato/files/lato-latin-400-normal.woff');
-const LATO_BOLD = require.resolve('@fontsource/lato/files/lato-latin-700-normal.woff');
 
 const MARGIN = 50;
 const COLUMNS: Array<{ key: keyof Row; title: string; width: number; align: 'left' | 'right' }> = [
@@ -62,7 +58,7 @@ function titleOf(invoice: InvoiceDto): string {
  */
 export function renderInvoicePdf(invoice: InvoiceDto): Promise<Buffer> {
   const doc = new PDFDocument({ size: 'LETTER', margin: MARGIN, info: { Title: `${titleOf(invoice)} ${invoice.numberLabel ?? ''}`.trim(), Author: invoice.issuer.name } });
-  doc.registerFont('Lato', LATO);
+  doc.registerFont('Lato', LATO_REGULAR);
   doc.registerFont('Lato-Bold', LATO_BOLD);
   const chunks: Buffer[] = [];
   doc.on('data', (chunk: Buffer) => chunks.push(chunk));

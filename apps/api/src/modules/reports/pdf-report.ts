@@ -1,14 +1,11 @@
-import { createRequire } from 'node:module';
 import { StreamableFile } from '@nestjs/common';
 import PDFDocument from 'pdfkit';
 import { attachmentDisposition } from '../../common/csv/csv-writer.js';
+import { LATO_BOLD, LATO_REGULAR } from '../../common/pdf/lato.js';
 
 // A plain printed report: a title, short paragraphs and tables that carry their header onto each new
-// page. Lato is embedded from the installed font package, so the PDF prints the same everywhere.
+// page. Lato is embedded from the font files shipped with the API, so the PDF prints the same everywhere.
 
-const require = createRequire(import.meta.url);
-const FONT_REGULAR = require.resolve('@fontsource/lato/files/lato-latin-400-normal.woff');
-const FONT_BOLD = require.resolve('@fontsource/lato/files/lato-latin-700-normal.woff');
 
 const MARGIN = 40;
 const ROW_GAP = 4;
@@ -27,8 +24,8 @@ export class PdfReport {
 
   constructor(title: string, subtitle: string) {
     this.doc = new PDFDocument({ size: 'LETTER', margin: MARGIN, info: { Title: title, Creator: 'Hitchbook' } });
-    this.doc.registerFont('regular', FONT_REGULAR);
-    this.doc.registerFont('bold', FONT_BOLD);
+    this.doc.registerFont('regular', LATO_REGULAR);
+    this.doc.registerFont('bold', LATO_BOLD);
     this.doc.on('data', (chunk: Buffer) => this.chunks.push(chunk));
     this.done = new Promise((resolve) => this.doc.on('end', () => resolve(Buffer.concat(this.chunks))));
     this.doc.font('bold').fontSize(16).text(title);
