@@ -9,6 +9,7 @@ import type { Actor } from '../../common/auth/actor.js';
 import { conflict, invalid, notFound } from '../../common/errors/app-error.js';
 import { AuditService } from '../../core/audit.service.js';
 import { DB, type DbHandle } from '../../core/database.js';
+import { killPointAfterCommit } from '../../core/fault-points.js';
 import { wholeOperation } from '../customer-portal/invoice-scope.js';
 import { BillingEntriesRepository } from './billing-entries.repository.js';
 import { claimIdempotencyKey, saveIdempotentResult } from './idempotency.js';
@@ -19,6 +20,8 @@ import { InvoicesRepository } from './invoices.repository.js';
 
 interface Saved {
   invoiceId: string;
+  /** False when an earlier request with the same Idempotency-Key did the work. */
+  fresh?: boolean;
 }
 
 function billedEntries(lines: InvoiceLine[]): Array<{ id: string; version: number; label: string }> {
@@ -62,7 +65,9 @@ export class InvoiceIssueService {
         }
         if (body.version !== undefined && body.version !== invoice.version) throw conflict('This draft was changed since you loaded it; reload it before issuing.');
 
-        const entries = billedEntries(await this.repo.lines(operationId, id, tx));
+        const lines = await this.repo.lines(operationId, id, tx);
+        if (lines.length === 0) throw conflict('This draft has no lines; add work or a line before issuing it.');
+        const entries = billedEntries(lines);
         billing = entries.map((e) => e.id);
         const party = (await this.repo.party(operationId, invoice.partyId, tx))!;
         const issuer = await this.repo.operation(operationId, tx);
@@ -96,8 +101,9 @@ export class InvoiceIssueService {
           tx,
         );
         if (remembered) await saveIdempotentResult(tx, remembered, { invoiceId: id });
-        return { invoiceId: id };
+        return { invoiceId: id, fresh: true };
       });
+      if (saved.fresh) killPointAfterCommit('invoice-issue');
       return await this.views.detailOrThrow(wholeOperation(operationId), saved.invoiceId);
     } catch (err) {
       const pg = pgErrorOf(err);
