@@ -308,3 +308,17 @@ export interface ImportReport<Row = Record<string, unknown>> {
   /** What a commit creates (preview) or created (commit), each with its spreadsheet row. */
   rows: Array<{ row: number } & Row>;
 }
+
+// ---------------------------------------------------------------- photos of an entry
+
+/** Enough for the pass, the field's corners and a broken part; more belongs in the machine's records. */
+export const MAX_ENTRY_PHOTOS = 12;
+
+/** A photo attached to an entry, as listed beside it (the file itself comes from its own route). */
+export interface WorkEntryPhotoDto {
+  uploadId: string;
+  originalName: string;
+  contentType: string;
+  sizeBytes: number;
+  createdAt: string;
+}

@@ -21,11 +21,14 @@ export interface PurposeRules {
   uploaders: readonly Role[];
   /** Who may fetch it again: receipts are money records, the rest is for the whole staff. */
   readers: readonly Role[];
+  /** Where such a file is sent instead of POST /api/uploads, when it belongs to one record from the start. */
+  sentThrough?: string;
 }
 
 export const PURPOSES: Readonly<Record<UploadPurpose, PurposeRules>> = {
   receipt: { kinds: [PDF, JPEG, PNG], uploaders: ['owner', 'partner'], readers: MONEY_ROLES },
   'machine-photo': { kinds: [JPEG, PNG], uploaders: ['owner', 'partner'], readers: STAFF_ROLES },
-  'entry-photo': { kinds: [JPEG, PNG], uploaders: ['owner', 'partner', 'operator'], readers: STAFF_ROLES },
+  // Entry photos are read through their entry (an operator sees only their own), never by id alone.
+  'entry-photo': { kinds: [JPEG, PNG], uploaders: ['owner', 'partner', 'operator'], readers: [], sentThrough: 'POST /api/work-entries/:id/photos' },
   'field-boundary': { kinds: [GEOJSON], uploaders: ['owner', 'partner'], readers: STAFF_ROLES },
 };

@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, inArray } from 'drizzle-orm';
 import { uploads, type Executor, type NewUpload, type Upload } from '@hitchbook/db';
 import { DB, type DbHandle } from '../../core/database.js';
 
@@ -16,5 +16,14 @@ export class UploadsRepository {
   async find(operationId: string, id: string, executor: Executor = this.dbh.db): Promise<Upload | undefined> {
     const [row] = await executor.select().from(uploads).where(and(eq(uploads.operationId, operationId), eq(uploads.id, id)));
     return row;
+  }
+
+  async delete(operationId: string, ids: string[], executor: Executor = this.dbh.db): Promise<string[]> {
+    if (ids.length === 0) return [];
+    const rows = await executor
+      .delete(uploads)
+      .where(and(eq(uploads.operationId, operationId), inArray(uploads.id, ids)))
+      .returning({ storageKey: uploads.storageKey });
+    return rows.map((r) => r.storageKey);
   }
 }

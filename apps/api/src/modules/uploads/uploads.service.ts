@@ -52,8 +52,14 @@ export class UploadsService {
     @Inject(AuditService) private readonly audit: AuditService,
   ) {}
 
-  async create(actor: Actor, purpose: UploadPurpose, file: ReceivedFile | undefined): Promise<UploadDto> {
-    if (!PURPOSES[purpose].uploaders.includes(actor.role)) throw forbidden(`Your role may not upload a ${purpose}.`);
+  /**
+   * Checks and stores one file. `attach`, when given, runs in the same transaction as the upload's
+   * row, so a file that cannot be linked to its record is neither kept nor left on disk.
+   */
+  async create(actor: Actor, purpose: UploadPurpose, file: ReceivedFile | undefined, attach?: (row: Upload, tx: Executor) => Promise<void>): Promise<UploadDto> {
+    const rules = PURPOSES[purpose];
+    if (!rules.uploaders.includes(actor.role)) throw forbidden(`Your role may not upload a ${purpose}.`);
+    if (rules.sentThrough && !attach) throw invalid('purpose', `An ${purpose} is sent to ${rules.sentThrough}, so it belongs to its record from the start.`);
     if (!file) throw invalid('file', 'Attach the file in the form field "file".');
     const originalName = safeFileName(file.originalname);
     const kind = await fileKindOrThrow(file.buffer, originalName, purpose);
@@ -75,6 +81,7 @@ export class UploadsService {
           tx,
         );
         await this.audit.record(this.audit.byActor(actor, 'upload.created', 'upload', row.id, { after: toDto(row) }), tx);
+        await attach?.(row, tx);
         return toDto(row);
       });
     } catch (err) {
@@ -88,10 +95,28 @@ export class UploadsService {
   async download(actor: Actor, id: string): Promise<UploadDownload> {
     const row = await this.repo.find(actor.operationId, id);
     if (!row || !PURPOSES[row.purpose as UploadPurpose]?.readers.includes(actor.role)) throw notFound('No such file.');
+    return this.fileOf(row);
+  }
+
+  /** The stored bytes of a row the caller has already been allowed to see. */
+  async fileOf(row: Upload): Promise<UploadDownload> {
     const stream = await this.storage.open(row.storageKey).catch(() => {
       throw notFound('The stored file is no longer available.');
     });
     return { stream, contentType: row.contentType, length: row.sizeBytes, disposition: attachmentDisposition(row.originalName) };
+  }
+
+  /**
+   * Deletes upload rows inside the caller's transaction (links to them cascade) and returns the
+   * stored files' keys, for `discardFiles` once that transaction has committed.
+   */
+  async deleteRows(operationId: string, ids: string[], tx: Executor): Promise<string[]> {
+    return this.repo.delete(operationId, ids, tx);
+  }
+
+  /** Best effort: a file left behind is unreachable (no row names it) and harmless. */
+  async discardFiles(storageKeys: string[]): Promise<void> {
+    await Promise.all(storageKeys.map((key) => this.storage.remove(key).catch(() => undefined)));
   }
 
   /** For a body field that names an upload: it must be this operation's and of the expected purpose. */

@@ -181,13 +181,13 @@ describe('uploads', () => {
     expect(junk.status).toBe(400);
   });
 
-  it('keeps receipts from operators (404) while letting them send and fetch entry photos', async () => {
+  it('keeps receipts from operators (404) and sends entry photos to their entry instead', async () => {
     const receipt = await upload(tokens.owner, 'receipt', pngBytes(), 'r.png');
     expect((await t.http().get(`/api/uploads/${receipt.body.id}`).set(bearer(tokens.operator))).status).toBe(404);
     expect((await upload(tokens.operator, 'receipt', pngBytes(), 'r.png')).status).toBe(403);
     const photo = await upload(tokens.operator, 'entry-photo', pngBytes(), 'pass.png');
-    expect(photo.status).toBe(201);
-    expect((await t.http().get(`/api/uploads/${photo.body.id}`).set(bearer(tokens.operator))).status).toBe(200);
+    expect(photo.status).toBe(400);
+    expect(photo.body.issues[0]).toMatchObject({ path: 'purpose', message: expect.stringContaining('/api/work-entries/:id/photos') });
   });
 
   it('refuses customers outright and bookkeepers as uploaders', async () => {
