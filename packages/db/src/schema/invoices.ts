@@ -133,14 +133,40 @@ export const payments = pgTable(
     stripePaymentIntentId: text().unique('payments_stripe_payment_intent_key'),
     stripeCheckoutSessionId: text(),
     status: text({ enum: ['succeeded', 'refunded'] }).notNull().default('succeeded'),
+    /** Handed back through Stripe so far; the invoice counts only amount − amountRefunded as paid. */
+    amountRefunded: numeric({ precision: 14, scale: 2 }).notNull().default('0'),
+    /** Why the owner should refund this payment (money that arrived for a void or already paid invoice); null when nothing is owed back. */
+    refundDue: text(),
     createdBy: uuid().references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     foreignKey({ name: 'payments_invoice_fk', columns: [t.operationId, t.invoiceId], foreignColumns: [invoices.operationId, invoices.id] }).onDelete('restrict'),
+    unique('payments_operation_id_id_key').on(t.operationId, t.id),
     index('payments_operation_invoice_idx').on(t.operationId, t.invoiceId),
     check('payments_amount_check', sql`${t.amount} > 0`),
+    check('payments_amount_refunded_check', sql`${t.amountRefunded} >= 0 and ${t.amountRefunded} <= ${t.amount}`),
     check('payments_method_check', sql`${t.method} in ('card', 'cheque', 'cash', 'transfer')`),
+  ],
+);
+
+/** A refund of a card payment, once per Stripe refund id: the owner's request and Stripe's event about it are the same row. */
+export const paymentRefunds = pgTable(
+  'payment_refunds',
+  {
+    id: id(),
+    operationId: uuid().notNull(),
+    paymentId: uuid().notNull(),
+    stripeRefundId: text().notNull().unique('payment_refunds_stripe_refund_key'),
+    amount: numeric({ precision: 14, scale: 2 }).notNull(),
+    reason: text(),
+    createdBy: uuid().references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    foreignKey({ name: 'payment_refunds_payment_fk', columns: [t.operationId, t.paymentId], foreignColumns: [payments.operationId, payments.id] }).onDelete('restrict'),
+    index('payment_refunds_payment_idx').on(t.operationId, t.paymentId),
+    check('payment_refunds_amount_check', sql`${t.amount} > 0`),
   ],
 );
 
@@ -180,4 +206,5 @@ export type NewInvoice = typeof invoices.$inferInsert;
 export type InvoiceLine = typeof invoiceLines.$inferSelect;
 export type NewInvoiceLine = typeof invoiceLines.$inferInsert;
 export type Payment = typeof payments.$inferSelect;
+export type PaymentRefund = typeof paymentRefunds.$inferSelect;
 export type CheckoutSession = typeof checkoutSessions.$inferSelect;
