@@ -1,11 +1,5 @@
 import { VitePWA } from 'vite-plugin-pwa';
-
-/**
- * The cab form's reads, kept for a phone without signal: the pickers (machines, fields, work
- * types, parties, members) and each machine's last meter reading. The web app deletes this cache
- * on sign-out and whenever a different person signs in, so one person's rows never serve another.
- */
-export const ENTRY_DATA_CACHE = 'hitchbook-entry-data';
+import { ENTRY_DATA_CACHE } from './src/features/offline/cacheNames';
 
 export function pwaPlugin() {
   return VitePWA({
@@ -39,6 +33,8 @@ export function pwaPlugin() {
       clientsClaim: true,
       skipWaiting: true,
       cleanupOutdatedCaches: true,
+      // The cab form's reads: the pickers (machines, fields, work types, parties, members) and each
+      // machine's last meter reading. ENTRY_DATA_CACHE is deleted when the person on the phone changes.
       runtimeCaching: [
         {
           urlPattern: ({ url, request, sameOrigin }) =>
