@@ -1,7 +1,8 @@
 import { randomUUID } from 'node:crypto';
-import { and, eq, inArray } from 'drizzle-orm';
+import { and, eq, inArray, sql } from 'drizzle-orm';
 import { invoiceCounters, invoiceEntries, invoices, workEntries } from '@hitchbook/db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { billingState, contiguous } from '../../test-support/billing-invariants.js';
 import { createOperation, signInAll, type OperationFixture } from '../../test-support/fixtures.js';
 import { createTestApp, type TestApp } from '../../test-support/test-app.js';
 import { addEntry, addNeighbourSheet, createBillingWorld, type BillingWorld } from './billing-world.fixture.js';
@@ -110,6 +111,71 @@ describe('issuing an invoice', () => {
     const locks = await t.dbh.db.select().from(invoiceEntries).where(inArray(invoiceEntries.workEntryId, entries));
     expect(locks.map((l) => l.invoiceId)).toEqual([winner, winner]);
     expect(await issuedNumbers(o.world.fx.operationId)).toEqual([1]);
+  });
+
+  it('bills each entry once when concurrent issues cover overlapping sets of entries', async () => {
+    const o = await outfit();
+    const days = Array.from({ length: 8 }, (_, i) => `2025-06-${String(i + 2).padStart(2, '0')}`);
+    const entryOn = new Map<string, string>();
+    for (const day of days) entryOn.set(day, await mowing(o, day));
+    // Pairs of neighbouring days, halves and the whole stretch: every draft shares entries with others.
+    const windows: Array<[number, number]> = [[0, 1], [1, 2], [2, 3], [3, 4], [4, 5], [5, 6], [6, 7], [0, 3], [2, 5], [4, 7], [0, 7], [1, 6]];
+    const drafts = [];
+    for (const [a, b] of windows) drafts.push({ ...(await draft(o, days[a]!, days[b]!)), covers: days.slice(a, b + 1).map((d) => entryOn.get(d)!) });
+    const results = await Promise.all(drafts.map((d) => issue(o, d.id)));
+
+    expect(results.map((r) => r.status).filter((s) => s !== 200 && s !== 409)).toEqual([]);
+    const winners = drafts.filter((_, i) => results[i]!.status === 200);
+    expect(winners.length).toBeGreaterThan(0);
+    const billed = winners.flatMap((w) => w.covers);
+    expect(new Set(billed).size).toBe(billed.length);
+    for (const [i, r] of results.entries()) if (r.status === 409) expect(r.body.message, drafts[i]!.id).toMatch(/already billed|no longer approved/);
+    // Each entry a winner covers is locked to that winner, and nothing else is locked.
+    const locks = await t.dbh.db.select().from(invoiceEntries).where(inArray(invoiceEntries.workEntryId, [...entryOn.values()]));
+    expect(Object.fromEntries(locks.map((l) => [l.workEntryId, l.invoiceId]))).toEqual(Object.fromEntries(winners.flatMap((w) => w.covers.map((e) => [e, w.id]))));
+    expect(await billingState(t.dbh.db, o.world.fx.operationId)).toEqual({ numbers: { INV: contiguous(winners.length) }, entriesOnTwoInvoices: [], partlyIssued: [], lockedByDraft: [] });
+  });
+
+  it('keeps numbers gapless when a third of concurrent issues roll back after taking their numbers', async () => {
+    const o = await outfit();
+    const drafts = [];
+    for (let day = 1; day <= 12; day++) {
+      const date = `2025-09-${String(day).padStart(2, '0')}`;
+      await mowing(o, date);
+      drafts.push(await draft(o, date, date));
+    }
+    // A trigger refuses the final write of some issues, after their number is taken and their entries
+    // locked, so the whole issuing transaction rolls back at its last step.
+    const doomed = drafts.filter((_, i) => i % 3 === 1).map((d) => d.id);
+    const fn = `refuse_issue_${randomUUID().replace(/-/g, '').slice(0, 12)}`;
+    await t.dbh.db.execute(
+      sql.raw(`create function ${fn}() returns trigger language plpgsql as $$ begin
+        if new.status = 'issued' and old.status = 'draft' and new.id in (${doomed.map((id) => `'${id}'`).join(',')}) then
+          raise exception 'refused for the rollback test';
+        end if;
+        return new;
+      end $$`),
+    );
+    await t.dbh.db.execute(sql.raw(`create trigger ${fn} before update on invoices for each row execute function ${fn}()`));
+    let results;
+    try {
+      results = await Promise.all(drafts.map((d) => issue(o, d.id)));
+    } finally {
+      await t.dbh.db.execute(sql.raw(`drop trigger ${fn} on invoices; drop function ${fn}()`));
+    }
+    for (const [i, r] of results.entries()) {
+      if (doomed.includes(drafts[i]!.id)) {
+        expect(r.status).toBe(500);
+        expect(JSON.stringify(r.body)).not.toMatch(/refused for the rollback test|stack/);
+      } else expect(r.status).toBe(200);
+    }
+    expect(await billingState(t.dbh.db, o.world.fx.operationId)).toEqual({ numbers: { INV: contiguous(8) }, entriesOnTwoInvoices: [], partlyIssued: [], lockedByDraft: [] });
+    const rolledBack = await t.dbh.db.select({ status: invoices.status, number: invoices.number }).from(invoices).where(inArray(invoices.id, doomed));
+    expect(rolledBack).toEqual(doomed.map(() => ({ status: 'draft', number: null })));
+
+    // Issued again once the fault is gone, they take the next numbers.
+    for (const id of doomed) expect((await issue(o, id)).status).toBe(200);
+    expect((await billingState(t.dbh.db, o.world.fx.operationId)).numbers).toEqual({ INV: contiguous(12) });
   });
 
   it('issues one draft once when the same issue arrives twenty times at once', async () => {
