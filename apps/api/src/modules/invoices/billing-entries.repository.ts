@@ -48,26 +48,20 @@ export class BillingEntriesRepository {
     await tx.insert(invoiceEntries).values(entryIds.map((workEntryId) => ({ workEntryId, operationId, invoiceId })));
   }
 
-  /** Moves the entries to invoiced, only those still approved for this party at the version the draft priced. */
+  /**
+   * Moves the entries to invoiced, only those still approved for this party at the version the draft priced.
+   * One statement whatever the number of entries: the ids and versions travel as two arrays.
+   */
   async markInvoiced(operationId: string, partyId: string, entries: Array<{ id: string; version: number }>, tx: Executor): Promise<string[]> {
-    const moved: string[] = [];
-    for (const entry of entries) {
-      const [row] = await tx
-        .update(workEntries)
-        .set({ state: 'invoiced', version: sql`${workEntries.version} + 1`, updatedAt: new Date() })
-        .where(
-          and(
-            eq(workEntries.operationId, operationId),
-            eq(workEntries.id, entry.id),
-            eq(workEntries.billToPartyId, partyId),
-            eq(workEntries.state, 'approved'),
-            eq(workEntries.version, entry.version),
-          ),
-        )
-        .returning({ id: workEntries.id });
-      if (row) moved.push(row.id);
-    }
-    return moved;
+    if (entries.length === 0) return [];
+    const result = await tx.execute<{ id: string }>(sql`
+      update work_entries we
+      set state = 'invoiced', version = we.version + 1, updated_at = now()
+      from unnest(${sql.param(entries.map((e) => e.id))}::uuid[], ${sql.param(entries.map((e) => e.version))}::int[]) as priced(id, version)
+      where we.operation_id = ${operationId} and we.id = priced.id and we.bill_to_party_id = ${partyId}
+        and we.state = 'approved' and we.version = priced.version
+      returning we.id`);
+    return result.rows.map((r) => r.id);
   }
 
   /** Voiding: the invoice lets go of its entries, which are approved and billable again. */
