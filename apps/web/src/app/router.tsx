@@ -4,11 +4,11 @@ import { NotFound } from '../components/NotFound';
 import { restoreSessionOnce } from '../lib/auth';
 import { paths } from '../lib/paths';
 import { redirectIfSignedIn, requireArea, requireSession } from './guards';
-import { AppLayout } from './layout/AppLayout';
 import { PublicLayout } from './layout/PublicLayout';
 import { RouteErrorBoundary } from './RouteErrorBoundary';
 
-// Every page is its own chunk; the estimate pages also pull in the charting library.
+// Every page is its own chunk; the estimate pages also pull in the charting library. The signed-in frame
+// (navigation, menus) is a chunk too, so the sign-in page does not load it.
 export const routes: RouteObject[] = [
   {
     id: 'root',
@@ -39,7 +39,7 @@ export const routes: RouteObject[] = [
       },
       {
         loader: requireSession,
-        element: <AppLayout />,
+        lazy: () => import('./layout/AppLayout').then(({ AppLayout }) => ({ Component: AppLayout })),
         children: [
           {
             errorElement: <RouteErrorBoundary />,
