@@ -3,8 +3,8 @@ import type { z } from 'zod';
 
 /**
  * Request bodies for fuzzing, driven by a route's own zod schema: values that pass the schema (so the
- * service and the database are reached), with hostile values mixed in at any field, or a hostile body
- * in place of the whole thing. Bodies are JSON text, so `__proto__` keys arrive exactly as an attacker
+ * service and the database are reached), the same with one field made hostile, or a hostile body in
+ * place of the whole thing. Bodies are JSON text, so `__proto__` keys arrive exactly as an attacker
  * would send them.
  */
 
@@ -109,7 +109,25 @@ function stringArb(def: Def, ctx: FuzzContext): fc.Arbitrary<unknown> {
       // A pattern fast-check cannot invert: plain strings still reach the refusal paths.
     }
   }
-  return fc.string({ minLength: min, maxLength: Math.min(max, min + 60) });
+  return fc.oneof(
+    { weight: 3, arbitrary: plausibleString(ctx) },
+    { weight: 1, arbitrary: fc.string({ minLength: min, maxLength: Math.min(max, min + 60) }) },
+  );
+}
+
+/**
+ * Many fields are strings checked by a refinement (decimals, dates, e-mail addresses) that no generator
+ * can invert; the shapes such fields take in this domain get most bodies past validation.
+ */
+function plausibleString(ctx: FuzzContext): fc.Arbitrary<string> {
+  return fc.oneof(
+    fc.constantFrom('0', '1', '2.5', '12.50', '100', '250.000', '0.01', '99.9999', '-3.25', '1000000', 'Home quarter', 'Tamarack Road', 'neighbour', 'someone@example.test'),
+    fc.integer({ min: 0, max: 99_999 }).map((n) => (n / 100).toFixed(2)),
+    fc.date({ min: new Date('2020-01-01T00:00:00Z'), max: new Date('2030-12-31T00:00:00Z'), noInvalidDate: true }).chain((d) =>
+      fc.constantFrom(d.toISOString().slice(0, 10), d.toISOString()),
+    ),
+    ctx.ids.length > 0 ? fc.constantFrom(...ctx.ids) : fc.uuid(),
+  );
 }
 
 function numberArb(def: Def): fc.Arbitrary<unknown> {
@@ -124,15 +142,26 @@ function numberArb(def: Def): fc.Arbitrary<unknown> {
     : fc.double({ min, max, noNaN: true });
 }
 
-/** An arbitrary for one schema node; with `mix`, any field may come out hostile instead. */
-export function bodyValue(schema: unknown, ctx: FuzzContext, mix: boolean, depth = 0): fc.Arbitrary<unknown> {
-  const inner = validValue(schema, ctx, mix, depth);
-  return mix ? fc.oneof({ weight: 4, arbitrary: inner }, { weight: 1, arbitrary: hostileLeaf }) : inner;
+/** Values that pass `schema`, found by sampling the generator and keeping what the schema accepts. */
+export function validValue(schema: unknown, ctx: FuzzContext, depth = 0): fc.Arbitrary<unknown> {
+  const parse = (schema as z.ZodType).safeParse?.bind(schema);
+  const raw = rawValue(schema, ctx, depth);
+  if (!parse) return raw;
+  const seen = new Set<string>();
+  const pool: unknown[] = [];
+  for (const v of fc.sample(raw, { numRuns: 150, seed: 1 })) {
+    const key = JSON.stringify(v) ?? 'undefined';
+    if (!seen.has(key) && parse(v === undefined ? v : JSON.parse(key)).success) {
+      seen.add(key);
+      pool.push(v);
+    }
+  }
+  return pool.length > 0 ? fc.constantFrom(...pool) : raw;
 }
 
-function validValue(schema: unknown, ctx: FuzzContext, mix: boolean, depth: number): fc.Arbitrary<unknown> {
+function rawValue(schema: unknown, ctx: FuzzContext, depth: number): fc.Arbitrary<unknown> {
   const def = defOf(schema);
-  const next = (s: unknown) => bodyValue(s, ctx, mix, depth + 1);
+  const next = (s: unknown) => validValue(s, ctx, depth + 1);
   if (depth > MAX_DEPTH) return hostileLeaf;
   switch (def.type) {
     case 'string':
@@ -163,11 +192,11 @@ function validValue(schema: unknown, ctx: FuzzContext, mix: boolean, depth: numb
     case 'readonly':
     case 'nonoptional':
     case 'success':
-      return validValue(def.innerType, ctx, mix, depth);
+      return rawValue(def.innerType, ctx, depth);
     case 'pipe':
-      return validValue(def.in, ctx, mix, depth);
+      return rawValue(def.in, ctx, depth);
     case 'lazy':
-      return validValue((def.getter as () => unknown)(), ctx, mix, depth + 1);
+      return rawValue((def.getter as () => unknown)(), ctx, depth + 1);
     case 'union':
       return fc.oneof(...(def.options as unknown[]).map(next));
     case 'intersection':
@@ -192,6 +221,25 @@ function validValue(schema: unknown, ctx: FuzzContext, mix: boolean, depth: numb
   }
 }
 
+/** Every place in a JSON value a hostile value could be put: object keys and array slots, at any depth. */
+function slotsOf(value: unknown, out: Array<[Record<string, unknown> | unknown[], string | number]> = []) {
+  if (Array.isArray(value)) value.forEach((v, i) => (out.push([value, i]), slotsOf(v, out)));
+  else if (isPlain(value)) for (const [k, v] of Object.entries(value)) out.push([value, k]), slotsOf(v, out);
+  return out;
+}
+
+/** The body with one field replaced (or one unknown field added) by a hostile value. */
+function poisoned(value: unknown, pick: number, hostile: unknown): unknown {
+  const copy = structuredClone(value);
+  const slots = slotsOf(copy);
+  if (slots.length === 0 || pick % (slots.length + 1) === slots.length) {
+    return isPlain(copy) ? { ...copy, unexpectedField: hostile } : hostile;
+  }
+  const [holder, key] = slots[pick % slots.length]!;
+  (holder as Record<string | number, unknown>)[key] = hostile;
+  return copy;
+}
+
 function isPlain(v: unknown): v is Record<string, unknown> {
   return typeof v === 'object' && v !== null && !Array.isArray(v);
 }
@@ -203,14 +251,15 @@ function withProtoKeys(json: string): string {
   return `{"__proto__":{"polluted":"yes"},"constructor":{"prototype":{"polluted":"yes"}}${rest === '}' ? '' : ','}${rest}`;
 }
 
-/** JSON text for a route's body: mostly schema-shaped, sometimes poisoned, sometimes anything at all. */
+/** JSON text for a route's body: valid, valid but for one hostile field, poisoned with prototype keys, or anything at all. */
 export function hostileBodyFor(schema: z.ZodType | null, ctx: FuzzContext): fc.Arbitrary<string> {
   if (!schema) return hostileBody;
   const serialise = (v: unknown) => JSON.stringify(v) ?? 'null';
+  const valid = validValue(schema, ctx);
   return fc.oneof(
-    { weight: 3, arbitrary: bodyValue(schema, ctx, false).map(serialise) },
-    { weight: 4, arbitrary: bodyValue(schema, ctx, true).map(serialise) },
-    { weight: 1, arbitrary: bodyValue(schema, ctx, true).map((v) => withProtoKeys(serialise(v))) },
+    { weight: 3, arbitrary: valid.map(serialise) },
+    { weight: 4, arbitrary: fc.tuple(valid, fc.nat(), hostileLeaf).map(([v, pick, h]) => serialise(poisoned(v, pick, h))) },
+    { weight: 1, arbitrary: valid.map((v) => withProtoKeys(serialise(v))) },
     { weight: 2, arbitrary: hostileBody },
   );
 }

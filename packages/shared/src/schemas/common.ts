@@ -11,6 +11,19 @@ export const singleLineText = (max: number) =>
     .max(max, { message: `At most ${max} characters.` })
     .refine((s) => !/[\r\n\u0000]/.test(s), { message: 'Must be a single line.' });
 
+/**
+ * An instant with its UTC offset, within the years the product deals in; the database would store
+ * year 17 happily, but neither people nor the date libraries downstream mean it.
+ */
+export const timestampSchema = (message: string) =>
+  z.iso.datetime({ offset: true, message }).refine(
+    (s) => {
+      const year = new Date(s).getUTCFullYear();
+      return year >= 1970 && year <= 2100;
+    },
+    { message: 'Must fall between the years 1970 and 2100.' },
+  );
+
 export const emailSchema = z
   .string()
   .trim()

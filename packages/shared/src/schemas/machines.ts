@@ -4,7 +4,7 @@ import { COST_CATEGORIES, type CostCategory } from '../actual-rate.js';
 import { Dec } from '../decimal.js';
 import { MACHINE_CLASS_IDS, machineClassOrThrow, type MachineClassId, type MachineKind } from '../machine-classes.js';
 import type { FuelType } from '../machine-cost.js';
-import { singleLineText, uuidSchema } from './common.js';
+import { singleLineText, timestampSchema, uuidSchema } from './common.js';
 import { decimalInput, wholeNumberInput, type DecimalRules } from './decimal-input.js';
 
 export const MACHINE_STATUSES = ['active', 'sold', 'retired'] as const;
@@ -235,8 +235,7 @@ export const METER_FUTURE_TOLERANCE_MS = 5 * 60 * 1000;
 export const meterReadingCreateSchema = z
   .strictObject({
     /** When the meter was read; defaults to now. */
-    readAt: z.iso
-      .datetime({ offset: true, message: 'Enter a date and time with its offset, for example 2025-06-03T07:30:00-05:00' })
+    readAt: timestampSchema('Enter a date and time with its offset, for example 2025-06-03T07:30:00-05:00')
       .refine((s) => Date.parse(s) <= Date.now() + METER_FUTURE_TOLERANCE_MS, { message: 'A meter cannot be read in the future' })
       .optional(),
     hours: scaledDecimal({ atLeast: 0, atMost: 1_000_000 }, 1),

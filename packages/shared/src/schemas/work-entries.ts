@@ -1,6 +1,6 @@
 import type { Decimal } from 'decimal.js';
 import { z } from 'zod';
-import { uuidSchema } from './common.js';
+import { timestampSchema, uuidSchema } from './common.js';
 import type { WorkEntryWarning } from '../work-entry-checks.js';
 import { decimalInput, type DecimalRules } from './decimal-input.js';
 
@@ -29,7 +29,7 @@ export function isCalendarDate(value: string): boolean {
   return date.getUTCFullYear() === y && date.getUTCMonth() === mo - 1 && date.getUTCDate() === d;
 }
 
-const timestampSchema = z.iso.datetime({ offset: true, message: 'Enter a date and time with its offset, for example 2025-06-03T07:30:00-05:00.' });
+const entryTimestampSchema = timestampSchema('Enter a date and time with its offset, for example 2025-06-03T07:30:00-05:00.');
 
 /** A decimal that also fits its database column's scale (meters read to a tenth, acres to a thousandth). */
 function quantity(rules: DecimalRules, decimals: number) {
@@ -60,8 +60,8 @@ const entryFields = {
   /** Hour meter of the power unit; the start defaults to the machine's last reading. */
   meterStart: meterInput().nullish(),
   meterEnd: meterInput().nullish(),
-  startedAt: timestampSchema.nullish(),
-  endedAt: timestampSchema.nullish(),
+  startedAt: entryTimestampSchema.nullish(),
+  endedAt: entryTimestampSchema.nullish(),
   /** Machine hours; when left out they come from meter end − start, else from the clock times. */
   hours: hoursInput().nullish(),
   /** Defaults to the machine hours. */

@@ -45,6 +45,7 @@ export class BillingEntriesRepository {
 
   /** The rows whose primary key makes a second bill for the same entry impossible; a clash throws 23505. */
   async claim(operationId: string, invoiceId: string, entryIds: string[], tx: Executor): Promise<void> {
+    if (entryIds.length === 0) return;
     await tx.insert(invoiceEntries).values(entryIds.map((workEntryId) => ({ workEntryId, operationId, invoiceId })));
   }
 
