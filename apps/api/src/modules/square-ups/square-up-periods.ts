@@ -21,8 +21,23 @@ export class SquareUpPeriods {
    */
   async assertPeriodOpenOrThrow(operationId: string, date: string, executor: Executor = this.dbh.db): Promise<void> {
     const closed = (await this.repo.coveringForShare(operationId, date, executor)).find((period) => period.status === 'closed');
-    if (closed) {
-      throw conflict(`${date} falls in the closed square-up "${closed.name}" (${closed.periodFrom} to ${closed.periodTo}); record the correction in the next period.`);
-    }
+    if (closed) throw conflict(closedMessage(date, closed));
   }
+
+  /** For a file of many rows: each of the days that falls in a closed period, with the same reason, in one query. */
+  async closedDaysAmong(operationId: string, days: string[], executor: Executor = this.dbh.db): Promise<Map<string, string>> {
+    const found = new Map<string, string>();
+    if (days.length === 0) return found;
+    const sorted = [...days].sort();
+    const closed = await this.repo.closedOverlappingForShare(operationId, sorted[0]!, sorted[sorted.length - 1]!, executor);
+    for (const day of days) {
+      const period = closed.find((p) => p.periodFrom <= day && p.periodTo >= day);
+      if (period) found.set(day, closedMessage(day, period));
+    }
+    return found;
+  }
+}
+
+function closedMessage(date: string, period: { name: string; periodFrom: string; periodTo: string }): string {
+  return `${date} falls in the closed square-up "${period.name}" (${period.periodFrom} to ${period.periodTo}); record the correction in the next period.`;
 }

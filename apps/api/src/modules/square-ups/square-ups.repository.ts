@@ -81,6 +81,15 @@ export class SquareUpsRepository {
       .for('share');
   }
 
+  /** Closed periods overlapping the days from..to, share-locked like `coveringForShare`. */
+  async closedOverlappingForShare(operationId: string, from: string, to: string, executor: Executor): Promise<SquareUp[]> {
+    return executor
+      .select()
+      .from(squareUps)
+      .where(and(eq(squareUps.operationId, operationId), eq(squareUps.status, 'closed'), lte(squareUps.periodFrom, to), gte(squareUps.periodTo, from)))
+      .for('share');
+  }
+
   /** The open period containing the day, else the latest open one. */
   async currentOpen(operationId: string, day: string): Promise<SquareUp | undefined> {
     const [row] = await this.dbh.db

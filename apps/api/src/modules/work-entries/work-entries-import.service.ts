@@ -17,6 +17,7 @@ import { AuditService } from '../../core/audit.service.js';
 import { DB, type DbHandle } from '../../core/database.js';
 import { RateLimitService } from '../../core/rate-limit.service.js';
 import { MachinesRepository } from '../machines/machines.repository.js';
+import { SquareUpPeriods } from '../square-ups/square-up-periods.js';
 import { FuelTicketsRepository } from './fuel-tickets.repository.js';
 import type { EntryColumns } from './entry-draft.js';
 import {
@@ -61,6 +62,8 @@ interface ImportPlan<C, P> {
   storedKeys: (operationId: string, keys: string[], executor: Executor) => Promise<Set<string>>;
   /** Checks that need every row at once (the meter order); may lock what it checks against. */
   fileProblems: (operationId: string, rows: Keyed<C, P>[], executor: Executor, lock: boolean) => Promise<ImportRowError[]>;
+  /** The day a row is dated on, which must not fall in a closed square-up. */
+  dateOf: (columns: C) => string;
   /** Writes a batch and returns the id of each row stored, by import key. */
   write: (actor: Actor, batch: Keyed<C, P>[], tx: Executor) => Promise<Map<string, string>>;
   auditAction: string;
@@ -96,6 +99,7 @@ export class WorkEntriesImportService {
     @Inject(MachinesRepository) private readonly machines: MachinesRepository,
     @Inject(AuditService) private readonly audit: AuditService,
     @Inject(RateLimitService) private readonly limits: RateLimitService,
+    @Inject(SquareUpPeriods) private readonly periods: SquareUpPeriods,
   ) {
     this.entryPlan = {
       kind: 'entries',
@@ -103,6 +107,7 @@ export class WorkEntriesImportService {
       resolve: resolveEntryRow,
       storedKeys: (op, keys, ex) => this.entries.existingImportKeys(op, keys, ex),
       fileProblems: (op, rows, ex, lock) => this.meterProblems(op, rows, ex, lock),
+      dateOf: (c) => c.workDate,
       write: (actor, batch, tx) => this.writeEntries(actor, batch, tx),
       auditAction: 'work-entry.imported',
     };
@@ -112,6 +117,7 @@ export class WorkEntriesImportService {
       resolve: resolveFuelRow,
       storedKeys: (op, keys, ex) => this.fuel.existingImportKeys(op, keys, ex),
       fileProblems: async () => [],
+      dateOf: (c) => c.incurredOn,
       write: async (actor, batch, tx) => {
         const inserted = await this.fuel.insertImported(actor.operationId, batch.map((r) => ({ ...r.columns, importKey: r.key, createdBy: actor.userId })), tx);
         return new Map(inserted.map((x) => [x.importKey!, x.id]));
@@ -190,6 +196,7 @@ export class WorkEntriesImportService {
     const resolved = results.flatMap((r) => (r.resolved ? [{ ...r.resolved, key: importKeyOf(actor.operationId, plan.kind, r.resolved.keyParts) }] : []));
     const { fresh, skippedRows } = await this.withoutDuplicates(plan, actor.operationId, resolved, executor);
     errors.push(...(await plan.fileProblems(actor.operationId, fresh, executor, forCommit)));
+    errors.push(...(await this.closedPeriodProblems(plan, actor.operationId, fresh, executor)));
     // By row, then in the template's column order, as the person fixing the file reads it.
     const position = new Map(plan.columns.map((c, i) => [c.header, i]));
     errors.sort((a, b) => a.row - b.row || (position.get(a.column) ?? -1) - (position.get(b.column) ?? -1));
@@ -214,6 +221,14 @@ export class WorkEntriesImportService {
       if (earlier === undefined) firstRow.set(r.key, r.row);
     }
     return { fresh, skippedRows };
+  }
+
+  private async closedPeriodProblems<C, P>(plan: ImportPlan<C, P>, operationId: string, rows: Keyed<C, P>[], executor: Executor): Promise<ImportRowError[]> {
+    const closed = await this.periods.closedDaysAmong(operationId, [...new Set(rows.map((r) => plan.dateOf(r.columns)))], executor);
+    return rows.flatMap((r) => {
+      const reason = closed.get(plan.dateOf(r.columns));
+      return reason ? [{ row: r.row, column: 'date', reason }] : [];
+    });
   }
 
   private async meterProblems(operationId: string, rows: Keyed<EntryColumns, EntryPreview>[], executor: Executor, lock: boolean): Promise<ImportRowError[]> {

@@ -18,11 +18,13 @@ import { DB, type DbHandle } from '../../core/database.js';
 import { constraintError } from './constraint-errors.js';
 import { completeDraft, draftFromCreate, draftFromUpdate, type EntryColumns, type EntryDraft, type FieldDefaults } from './entry-draft.js';
 import { requireEntryAccess, type EntryAction } from './entry-access.js';
+import { EntryPhotosService } from './entry-photos.service.js';
 import { FieldsRepository } from '../fields/fields.repository.js';
 import { MachinesRepository } from '../machines/machines.repository.js';
 import { MeterReadingsRepository } from '../machines/meter-readings.repository.js';
 import { MeterReadingsService } from '../machines/meter-readings.service.js';
 import { PartiesRepository } from '../parties/parties.repository.js';
+import { SquareUpPeriods } from '../square-ups/square-up-periods.js';
 import { WorkTypesRepository } from '../work-types/work-types.repository.js';
 import { entryReadingTime } from './meter-order.js';
 import { ReferencesRepository } from './references.repository.js';
@@ -49,6 +51,8 @@ export class WorkEntriesService {
     @Inject(MeterReadingsRepository) private readonly readings: MeterReadingsRepository,
     @Inject(MeterReadingsService) private readonly meter: MeterReadingsService,
     @Inject(AuditService) private readonly audit: AuditService,
+    @Inject(SquareUpPeriods) private readonly periods: SquareUpPeriods,
+    @Inject(EntryPhotosService) private readonly photos: EntryPhotosService,
   ) {}
 
   async list(actor: Actor, query: WorkEntryListQuery): Promise<WorkEntryPage> {
@@ -71,6 +75,7 @@ export class WorkEntriesService {
     try {
       const id = await this.dbh.db.transaction(async (tx) => {
         const draft = draftFromCreate(input, operatorUserId);
+        await this.periods.assertPeriodOpenOrThrow(actor.operationId, draft.workDate, tx);
         const { field } = await this.resolveReferences(actor.operationId, draft, null, tx);
         const columns = await this.completeOrThrow(actor.operationId, draft, field, tx);
         const submitted = input.state === 'submitted';
@@ -103,6 +108,9 @@ export class WorkEntriesService {
         if (patch.operatorUserId !== undefined && patch.operatorUserId !== locked.operatorUserId) this.operatorOrThrow(actor, patch.operatorUserId);
         const oldField = await this.fields.find(actor.operationId, locked.fieldId, tx);
         const draft = draftFromUpdate(locked, patch, oldField);
+        // An entry may neither leave nor enter a closed square-up: both would change a final statement.
+        await this.periods.assertPeriodOpenOrThrow(actor.operationId, locked.workDate, tx);
+        if (draft.workDate !== locked.workDate) await this.periods.assertPeriodOpenOrThrow(actor.operationId, draft.workDate, tx);
         const { field } = await this.resolveReferences(actor.operationId, draft, locked, tx);
         // The entry's own earlier reading is replaced, so it is neither its default start nor its neighbour.
         await this.repo.deleteMeterReadingOf(actor.operationId, id, tx);
@@ -131,11 +139,15 @@ export class WorkEntriesService {
   }
 
   async remove(actor: Actor, id: string): Promise<void> {
-    await this.dbh.db.transaction(async (tx) => {
+    const photoFiles = await this.dbh.db.transaction(async (tx) => {
       const locked = await this.lockOrThrow(actor, id, 'delete', tx);
+      await this.periods.assertPeriodOpenOrThrow(actor.operationId, locked.workDate, tx);
+      const files = await this.photos.deleteAllOf(actor.operationId, id, tx);
       await this.repo.delete(actor.operationId, id, tx);
       await this.audit.record(this.audit.byActor(actor, 'work-entry.deleted', 'work-entry', id, { before: locked }), tx);
+      return files;
     });
+    await this.photos.discardFiles(photoFiles);
   }
 
   private async transition(
@@ -148,6 +160,7 @@ export class WorkEntriesService {
     await this.dbh.db.transaction(async (tx) => {
       const locked = await this.lockOrThrow(actor, id, action, tx);
       if (body.version !== undefined) versionOrThrow(locked, body.version);
+      await this.periods.assertPeriodOpenOrThrow(actor.operationId, locked.workDate, tx);
       const after = await this.repo.update(actor.operationId, id, change(), tx);
       const verb = action === 'submit' ? 'submitted' : action === 'approve' ? 'approved' : 'reopened';
       await this.audit.record(this.audit.byActor(actor, `work-entry.${verb}`, 'work-entry', id, { before: locked, after }), tx);
