@@ -1,0 +1,119 @@
+import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { build, type Manifest } from 'vite';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+// The structure behind the bundle budget (npm run bench measures the bytes): the sign-in page and the cab
+// form load no table, chart, date-picker or upload code, and every page is a chunk of its own. It builds the
+// app itself, so it checks the sources as they are rather than whatever dist was built last.
+
+const webRoot = fileURLToPath(new URL('../..', import.meta.url));
+const HEAVY_PACKAGES = /node_modules\/(mantine-react-table|@tanstack\/react-table|@mantine\/charts|recharts|d3-[a-z-]+|@mantine\/dates|dayjs|@mantine\/dropzone|react-dropzone)\//;
+const ROUTE_MODULE = /^src\/(features\/[^/]+\/routes|app\/layout)\//;
+
+const SIGN_IN = ['src/features/auth/routes/SignInPage.tsx'];
+const CAB_FORM = ['src/app/layout/AppLayout.tsx', 'src/features/work/routes/LogWorkPage.tsx'];
+
+let outDir: string;
+let manifest: Manifest;
+
+beforeAll(async () => {
+  outDir = mkdtempSync(join(tmpdir(), 'hitchbook-web-split-'));
+  await build({
+    root: webRoot,
+    configFile: join(webRoot, 'vite.config.ts'),
+    logLevel: 'error',
+    build: { outDir, emptyOutDir: true, manifest: true, sourcemap: true },
+  });
+  manifest = JSON.parse(readFileSync(join(outDir, '.vite', 'manifest.json'), 'utf8')) as Manifest;
+}, 240_000);
+
+afterAll(() => {
+  if (outDir) rmSync(outDir, { recursive: true, force: true });
+});
+
+function entryKey(): string {
+  const keys = Object.keys(manifest).filter((key) => manifest[key]!.isEntry);
+  expect(keys).toHaveLength(1);
+  return keys[0]!;
+}
+
+/** Manifest keys a page needs before it is usable: the entry, what it loads lazily on every page, the route chain. */
+function pageChunks(routeChain: string[]): Set<string> {
+  const entry = entryKey();
+  const everyPage = (manifest[entry]!.dynamicImports ?? []).filter((key) => !ROUTE_MODULE.test(key));
+  const seen = new Set<string>();
+  const pending = [entry, ...everyPage, ...routeChain];
+  while (pending.length > 0) {
+    const key = pending.pop()!;
+    if (seen.has(key)) continue;
+    const chunk = manifest[key];
+    if (!chunk) throw new Error(`${key} is not a chunk of its own`);
+    seen.add(key);
+    pending.push(...(chunk.imports ?? []));
+  }
+  return seen;
+}
+
+function heavySourcesIn(keys: Set<string>): string[] {
+  const found = new Set<string>();
+  for (const key of keys) {
+    const file = manifest[key]!.file;
+    if (!file.endsWith('.js')) continue;
+    // Only generated glue (the chunk loader runtime) has no source map, and no package code in it.
+    if (!readFileSync(join(outDir, file), 'utf8').includes('sourceMappingURL=')) continue;
+    const map = JSON.parse(readFileSync(join(outDir, `${file}.map`), 'utf8')) as { sources: string[] };
+    for (const source of map.sources) {
+      const match = HEAVY_PACKAGES.exec(source);
+      if (match) found.add(`${match[1]} (in ${file})`);
+    }
+  }
+  return [...found];
+}
+
+function routeModules(): string[] {
+  const featuresDir = join(webRoot, 'src', 'features');
+  return readdirSync(featuresDir).flatMap((feature) => {
+    let files: string[] = [];
+    try {
+      files = readdirSync(join(featuresDir, feature, 'routes'));
+    } catch {
+      return [];
+    }
+    return files.filter((file) => file.endsWith('.tsx')).map((file) => `src/features/${feature}/routes/${file}`);
+  });
+}
+
+describe('web bundle split', () => {
+  it('the sign-in page loads no table, chart, date or upload code and not the signed-in frame', () => {
+    const chunks = pageChunks(SIGN_IN);
+    expect(heavySourcesIn(chunks)).toEqual([]);
+    expect(manifest['src/app/layout/AppLayout.tsx']?.isDynamicEntry).toBe(true);
+    expect(chunks.has('src/app/layout/AppLayout.tsx')).toBe(false);
+  });
+
+  it('the cab work-entry form loads no table, chart, date or upload code', () => {
+    expect(heavySourcesIn(pageChunks(CAB_FORM))).toEqual([]);
+  });
+
+  it('the check would see the heavy packages where they are used', () => {
+    // The entries list is a table page, own-or-hire draws a chart and the CSV import takes a dropped file:
+    // if these came back clean, the source-map reading above would be blind rather than the two pages clean.
+    const seen = (page: string) => heavySourcesIn(pageChunks(['src/app/layout/AppLayout.tsx', page])).join(' ');
+    expect(seen('src/features/work/routes/WorkEntriesPage.tsx')).toContain('mantine-react-table');
+    expect(seen('src/features/estimates/routes/OwnOrHirePage.tsx')).toMatch(/recharts|@mantine\/charts/);
+    expect(seen('src/features/work/routes/ImportPage.tsx')).toContain('@mantine/dropzone');
+  });
+
+  it('every page of every area is a lazy chunk outside the entry', () => {
+    const eager = pageChunks([]);
+    const pages = routeModules();
+    expect(pages.length).toBeGreaterThan(20);
+    for (const page of pages) {
+      expect(manifest[page]?.isDynamicEntry, `${page} should be a lazy route chunk`).toBe(true);
+      expect(eager.has(page), `${page} should not load with the entry`).toBe(false);
+    }
+  });
+});
