@@ -119,6 +119,13 @@ export const manualPaymentSchema = z.strictObject({
 });
 export type ManualPayment = z.output<typeof manualPaymentSchema>;
 
+/** `POST /api/invoices/:id/payments/:paymentId/refund`: card money handed back through Stripe; all that is left of the payment when no amount is given. */
+export const paymentRefundSchema = z.strictObject({
+  amount: moneyInput({ above: 0 }).optional(),
+  reason: singleLineText(200).nullish(),
+});
+export type PaymentRefundInput = z.output<typeof paymentRefundSchema>;
+
 /** `POST /api/invoices/:id/send`: to the party's e-mail address unless another is given. */
 export const invoiceSendSchema = z.strictObject({ to: emailSchema.optional() });
 
@@ -238,6 +245,10 @@ export interface PaymentDto {
   receivedOn: string;
   reference: string | null;
   status: 'succeeded' | 'refunded';
+  /** Handed back by card refund so far; the invoice counts amount − amountRefunded as paid. */
+  amountRefunded: string;
+  /** Set when this money should go back to the payer (it arrived for a void or already paid invoice). */
+  refundDue: string | null;
   createdAt: string;
 }
 

@@ -1,6 +1,7 @@
 import { Inject, Injectable } from '@nestjs/common';
 import type { Decimal } from 'decimal.js';
 import { sql } from 'drizzle-orm';
+import type Stripe from 'stripe';
 import { pgErrorOf, UNIQUE_VIOLATION, type Executor, type Invoice, type InvoiceLine } from '@hitchbook/db';
 import { Dec } from '@hitchbook/shared/decimal';
 import { toMoneyString } from '@hitchbook/shared/money';
@@ -11,6 +12,8 @@ import { AuditService } from '../../core/audit.service.js';
 import { DB, type DbHandle } from '../../core/database.js';
 import { killPointAfterCommit } from '../../core/fault-points.js';
 import { wholeOperation } from '../customer-portal/invoice-scope.js';
+import { expireOpenSessions } from '../payments/open-sessions.js';
+import { STRIPE } from '../payments/stripe-client.js';
 import { BillingEntriesRepository } from './billing-entries.repository.js';
 import { claimIdempotencyKey, saveIdempotentResult } from './idempotency.js';
 import { snapshotOf } from './invoice.dto.js';
@@ -46,6 +49,7 @@ export class InvoiceIssueService {
     @Inject(BillingEntriesRepository) private readonly entries: BillingEntriesRepository,
     @Inject(InvoiceViews) private readonly views: InvoiceViews,
     @Inject(AuditService) private readonly audit: AuditService,
+    @Inject(STRIPE) private readonly stripe: Stripe | null,
   ) {}
 
   async issue(actor: Actor, id: string, body: { version?: number }, idempotencyKey?: string): Promise<InvoiceDto> {
@@ -116,7 +120,7 @@ export class InvoiceIssueService {
     }
   }
 
-  /** A void invoice keeps its number; its entries are approved and billable again. */
+  /** A void invoice keeps its number; its entries are approved and billable again, and its open pay links are expired. */
   async void(actor: Actor, id: string, reason: string): Promise<InvoiceDto> {
     const operationId = actor.operationId;
     await this.dbh.db.transaction(async (tx) => {
@@ -128,9 +132,11 @@ export class InvoiceIssueService {
       if ((await this.repo.creditNotesOf(operationId, id, tx)).some((cn) => cn.status === 'issued')) {
         throw conflict('Credit notes refer to this invoice; correct it with a further credit note instead.');
       }
+      // Last, after every refusal above: a pay link is only cancelled for a void that goes through.
+      const expiredSessions = await expireOpenSessions(this.stripe, tx, operationId, id);
       const released = await this.entries.release(operationId, id, tx);
       await this.repo.update(operationId, id, { status: 'void', voidedAt: new Date(), voidReason: reason, version: invoice.version + 1 }, tx);
-      await this.audit.record(this.audit.byActor(actor, 'invoice.voided', 'invoice', id, { before: { status: invoice.status }, after: { status: 'void', reason, released } }), tx);
+      await this.audit.record(this.audit.byActor(actor, 'invoice.voided', 'invoice', id, { before: { status: invoice.status }, after: { status: 'void', reason, released, expiredSessions } }), tx);
     });
     return this.views.detailOrThrow(wholeOperation(operationId), id);
   }

@@ -1,8 +1,9 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { sql } from 'drizzle-orm';
-import { payments, type Executor } from '@hitchbook/db';
+import type { Decimal } from 'decimal.js';
+import { and, eq, sql } from 'drizzle-orm';
+import { paymentRefunds, payments, type Executor, type Invoice, type Payment } from '@hitchbook/db';
 import { Dec } from '@hitchbook/shared/decimal';
-import { toMoneyString } from '@hitchbook/shared/money';
+import { formatMoney, fromCents, toMoneyString } from '@hitchbook/shared/money';
 import type { ManualPayment, ManualPaymentResultDto, PaymentDto } from '@hitchbook/shared/schemas/invoices';
 import type { Actor } from '../../common/auth/actor.js';
 import { conflict, invalid, notFound } from '../../common/errors/app-error.js';
@@ -23,6 +24,20 @@ export interface CardPayment {
 }
 
 export type CardPaymentOutcome = { recorded: true; paymentId: string; overpaid: boolean } | { recorded: false };
+
+/** A refund Stripe made (or confirmed by its event) of a card payment, found by the payment's PaymentIntent. */
+export interface CardRefund {
+  stripeRefundId: string;
+  paymentIntentId: string;
+  amountCents: number;
+  reason: string | null;
+  createdBy: string | null;
+}
+
+export type CardRefundOutcome = { recorded: true; payment: Payment; invoice: Invoice } | { recorded: false; outcome: string };
+
+const REFUND_DUE_VOID = 'Paid by card after the invoice was voided; refund it to the payer.';
+const refundDueOverpaid = (excess: Decimal) => `Paid ${formatMoney(excess)} more than was open; refund the difference to the payer.`;
 
 /** Money received against an invoice: by cheque, cash or transfer from the owner, by card from the webhook. */
 @Injectable()
@@ -94,14 +109,66 @@ export class InvoicePaymentsService {
       .returning();
     if (!payment) return { recorded: false };
     const balance = new Dec((await this.repo.summary(wholeOperation(card.operationId), card.invoiceId, tx))!.balance);
-    const overpaid = invoice.status !== 'issued' || new Dec(card.amount).gt(balance);
+    const refundDue = invoice.status !== 'issued' ? REFUND_DUE_VOID : new Dec(card.amount).gt(balance) ? refundDueOverpaid(new Dec(card.amount).minus(Dec.max(balance, 0))) : null;
+    const overpaid = refundDue !== null;
+    if (refundDue) await tx.update(payments).set({ refundDue }).where(eq(payments.id, payment.id));
     await this.repo.update(card.operationId, card.invoiceId, { amountPaid: new Dec(invoice.amountPaid).plus(card.amount).toFixed(2), version: invoice.version + 1 }, tx);
     await this.audit.record(
-      { operationId: card.operationId, actorUserId: null, action: overpaid ? 'payment.card-overpaid' : 'payment.card-received', entityType: 'invoice', entityId: card.invoiceId, after: toPaymentDto(payment) },
+      { operationId: card.operationId, actorUserId: null, action: overpaid ? 'payment.card-overpaid' : 'payment.card-received', entityType: 'invoice', entityId: card.invoiceId, after: { ...toPaymentDto(payment), refundDue } },
       tx,
     );
     await this.mail.queueReceipt(card.operationId, payment.id, tx);
     return { recorded: true, paymentId: payment.id, overpaid };
+  }
+
+  /**
+   * Books a card refund once per Stripe refund id, whether it comes from the owner's request or from
+   * Stripe's event: the payment keeps what was handed back, the invoice counts the rest as paid (so a
+   * paid invoice is partly paid or open again), and a refund that was due is cleared once made.
+   */
+  async recordRefund(refund: CardRefund, tx: Executor): Promise<CardRefundOutcome> {
+    const [found] = await tx.select().from(payments).where(eq(payments.stripePaymentIntentId, refund.paymentIntentId));
+    if (!found) return { recorded: false, outcome: 'refund of a payment not recorded here' };
+    const invoice = (await this.repo.lock(found.operationId, found.invoiceId, tx))!;
+    const [payment] = await tx.select().from(payments).where(and(eq(payments.operationId, found.operationId), eq(payments.id, found.id))).for('update');
+    const [known] = await tx.select({ id: paymentRefunds.id }).from(paymentRefunds).where(eq(paymentRefunds.stripeRefundId, refund.stripeRefundId));
+    if (known) return { recorded: false, outcome: 'refund already recorded' };
+    const amount = fromCents(refund.amountCents);
+    const refunded = new Dec(payment!.amountRefunded).plus(amount);
+    if (refunded.gt(payment!.amount)) return { recorded: false, outcome: `mismatch: refunds of ${toMoneyString(refunded)} exceed the payment of ${payment!.amount}` };
+    await tx.insert(paymentRefunds).values({
+      operationId: payment!.operationId,
+      paymentId: payment!.id,
+      stripeRefundId: refund.stripeRefundId,
+      amount: amount.toFixed(2),
+      reason: refund.reason,
+      createdBy: refund.createdBy,
+    });
+    const updatedInvoice = await this.repo.update(invoice.operationId, invoice.id, { amountPaid: new Dec(invoice.amountPaid).minus(amount).toFixed(2), version: invoice.version + 1 }, tx);
+    const balance = new Dec((await this.repo.summary(wholeOperation(invoice.operationId), invoice.id, tx))!.balance);
+    const stillDue = payment!.refundDue !== null && refunded.lt(payment!.amount) && (invoice.status !== 'issued' || balance.lt(0));
+    const [updated] = await tx
+      .update(payments)
+      .set({
+        amountRefunded: refunded.toFixed(2),
+        status: refunded.eq(payment!.amount) ? 'refunded' : 'succeeded',
+        refundDue: stillDue ? (invoice.status === 'issued' ? refundDueOverpaid(balance.neg()) : payment!.refundDue) : null,
+      })
+      .where(eq(payments.id, payment!.id))
+      .returning();
+    await this.audit.record(
+      {
+        operationId: invoice.operationId,
+        actorUserId: refund.createdBy,
+        action: 'payment.refunded',
+        entityType: 'invoice',
+        entityId: invoice.id,
+        before: { amountRefunded: payment!.amountRefunded },
+        after: { payment: payment!.id, refund: refund.stripeRefundId, amount: amount.toFixed(2), amountRefunded: refunded.toFixed(2) },
+      },
+      tx,
+    );
+    return { recorded: true, payment: updated!, invoice: updatedInvoice };
   }
 }
 

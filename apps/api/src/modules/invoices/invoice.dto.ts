@@ -95,6 +95,8 @@ export function toPaymentDto(p: Payment): PaymentDto {
     receivedOn: p.receivedOn,
     reference: p.reference,
     status: p.status,
+    amountRefunded: p.amountRefunded,
+    refundDue: p.refundDue,
     createdAt: p.createdAt.toISOString(),
   };
 }

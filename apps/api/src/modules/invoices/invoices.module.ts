@@ -1,4 +1,5 @@
 import { Module } from '@nestjs/common';
+import { StripeModule } from '../payments/stripe.module.js';
 import { RateSheetsModule } from '../rate-sheets/rate-sheets.module.js';
 import { BillingEntriesRepository } from './billing-entries.repository.js';
 import { InvoiceDraftsService } from './invoice-drafts.service.js';
@@ -11,7 +12,7 @@ import { InvoicesRepository } from './invoices.repository.js';
 import { InvoicesService } from './invoices.service.js';
 
 @Module({
-  imports: [RateSheetsModule],
+  imports: [RateSheetsModule, StripeModule],
   controllers: [InvoicesController],
   providers: [InvoicesRepository, BillingEntriesRepository, InvoiceViews, InvoiceMail, InvoiceDraftsService, InvoiceIssueService, InvoicePaymentsService, InvoicesService],
   exports: [InvoicesRepository, InvoiceViews, InvoicePaymentsService],

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import type { AddressInfo } from 'node:net';
 import { eq } from 'drizzle-orm';
 import Stripe from 'stripe';
-import { auditLog, checkoutSessions, invoices, parties, payments, stripeEvents } from '@hitchbook/db';
+import { auditLog, checkoutSessions, invoices, parties, paymentRefunds, payments, stripeEvents } from '@hitchbook/db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createOperation, signInAll, type OperationFixture } from '../../test-support/fixtures.js';
 import { waitForMail } from '../../test-support/mailbox.js';
@@ -274,5 +274,152 @@ describe('the Stripe webhook', () => {
     }
     const [row] = await t.dbh.db.select({ amountPaid: invoices.amountPaid }).from(invoices).where(eq(invoices.id, invoice.id));
     expect(row?.amountPaid).toBe('0.00');
+  });
+});
+
+/** Pays the invoice's checkout on the fake with 4242… and delivers Stripe's completed event for it. */
+async function paidByCard(invoiceId: string) {
+  expect((await checkout(invoiceId)).status).toBe(200);
+  const session = await storedSession(invoiceId);
+  expect((await payOnFake(session.stripeSessionId, '4242 4242 4242 4242')).status).toBe(200);
+  expect((await deliver(await fakeEvent('checkout.session.completed', session.stripeSessionId))).status).toBe(200);
+  const intentId = (await stripe.checkout.sessions.retrieve(session.stripeSessionId)).payment_intent as string;
+  const [payment] = await paymentsOf(invoiceId);
+  expect(payment).toMatchObject({ method: 'card', stripePaymentIntentId: intentId });
+  return { session, intentId, payment: payment! };
+}
+
+const refundPayment = (invoiceId: string, paymentId: string, body: object = {}, token = tokens.owner) =>
+  t.http().post(`/api/invoices/${invoiceId}/payments/${paymentId}/refund`).set(bearer(token)).send(body);
+const voidInvoice = (id: string) => t.http().post(`/api/invoices/${id}/void`).set(bearer(tokens.owner)).send({ reason: 'Billed to the wrong neighbour' });
+const outcomeOf = async (eventId: string) => (await t.dbh.db.select().from(stripeEvents).where(eq(stripeEvents.id, eventId)))[0]?.outcome;
+
+describe('voiding an invoice with a pay link out', () => {
+  it('expires its open Checkout Session, so the old link can no longer take money', async () => {
+    const invoice = await issuedInvoice();
+    expect((await checkout(invoice.id)).status).toBe(200);
+    const session = await storedSession(invoice.id);
+    const voided = await voidInvoice(invoice.id);
+    expect(voided.status).toBe(200);
+    expect(voided.body.status).toBe('void');
+
+    expect((await stripe.checkout.sessions.retrieve(session.stripeSessionId)).status).toBe('expired');
+    expect((await storedSession(invoice.id)).status).toBe('expired');
+    const stale = await payOnFake(session.stripeSessionId, '4242 4242 4242 4242');
+    expect(stale.status).toBe(400);
+    expect((await checkout(invoice.id)).status).toBe(409);
+    expect(await paymentsOf(invoice.id)).toEqual([]);
+  });
+
+  it('is refused when the payer completed the checkout a moment before, and the payment then books normally', async () => {
+    const invoice = await issuedInvoice();
+    expect((await checkout(invoice.id)).status).toBe(200);
+    const session = await storedSession(invoice.id);
+    // Paid on Stripe; its event has not reached the API yet.
+    expect((await payOnFake(session.stripeSessionId, '4242 4242 4242 4242')).status).toBe(200);
+    const refused = await voidInvoice(invoice.id);
+    expect(refused.status).toBe(409);
+    expect(refused.body.message).toContain('card payment for this invoice has just been made');
+    expect(await standing(invoice.id)).toMatchObject({ state: 'issued', balance: '210.00' });
+
+    expect((await deliver(await fakeEvent('checkout.session.completed', session.stripeSessionId))).status).toBe(200);
+    expect(await standing(invoice.id)).toMatchObject({ state: 'paid', balance: '0.00' });
+    expect((await paymentsOf(invoice.id))[0]?.refundDue).toBeNull();
+  });
+
+  it('records a card payment that arrives for a void invoice as money to refund, flags it, and clears the flag once refunded', async () => {
+    const invoice = await issuedInvoice();
+    expect((await checkout(invoice.id)).status).toBe(200);
+    const session = await storedSession(invoice.id);
+    expect((await payOnFake(session.stripeSessionId, '4242 4242 4242 4242')).status).toBe(200);
+    // A session the server no longer counted as open (as after a lost answer from Stripe), so the void went through.
+    await t.dbh.db.update(checkoutSessions).set({ status: 'expired' }).where(eq(checkoutSessions.id, session.id));
+    expect((await voidInvoice(invoice.id)).status).toBe(200);
+
+    const completed = await fakeEvent('checkout.session.completed', session.stripeSessionId);
+    expect((await deliver(completed)).status).toBe(200);
+    expect(await outcomeOf(completed.id)).toBe('payment recorded: refund due to the payer');
+    const [payment] = await paymentsOf(invoice.id);
+    expect(payment).toMatchObject({ amount: '210.00', amountRefunded: '0.00', refundDue: 'Paid by card after the invoice was voided; refund it to the payer.' });
+    const listed = await t.http().get(`/api/invoices/${invoice.id}/payments`).set(bearer(tokens.owner));
+    expect(listed.body[0]).toMatchObject({ refundDue: 'Paid by card after the invoice was voided; refund it to the payer.', amountRefunded: '0.00' });
+    const flagged = await t.dbh.db.select().from(auditLog).where(eq(auditLog.entityId, invoice.id));
+    expect(flagged.map((a) => a.action)).toContain('payment.card-overpaid');
+    const detail = await t.http().get(`/api/invoices/${invoice.id}`).set(bearer(tokens.owner));
+    expect(detail.body).toMatchObject({ status: 'void', state: 'void' });
+
+    const refunded = await refundPayment(invoice.id, payment!.id);
+    expect(refunded.status).toBe(200);
+    expect(refunded.body.payment).toMatchObject({ amountRefunded: '210.00', status: 'refunded', refundDue: null });
+    const intent = await stripe.paymentIntents.retrieve(payment!.stripePaymentIntentId!, { expand: ['latest_charge'] });
+    expect((intent.latest_charge as Stripe.Charge).amount_refunded).toBe(21000);
+  });
+});
+
+describe('refunds of card payments', () => {
+  it('lets the owner refund part and then the rest; the invoice goes from paid to partly paid to open', async () => {
+    const invoice = await issuedInvoice();
+    const { payment, intentId } = await paidByCard(invoice.id);
+    expect(await standing(invoice.id)).toMatchObject({ state: 'paid' });
+
+    const part = await refundPayment(invoice.id, payment.id, { amount: '60.00', reason: 'Ten acres were not mown' });
+    expect(part.status).toBe(200);
+    expect(part.body.payment).toMatchObject({ amountRefunded: '60.00', status: 'succeeded' });
+    expect(part.body.invoice).toMatchObject({ state: 'partly-paid', balance: '60.00', amountPaid: '150.00' });
+    const [row] = await t.dbh.db.select().from(paymentRefunds).where(eq(paymentRefunds.paymentId, payment.id));
+    expect(row).toMatchObject({ amount: '60.00', reason: 'Ten acres were not mown' });
+    expect(await stripe.refunds.retrieve(row!.stripeRefundId)).toMatchObject({ amount: 6000, payment_intent: intentId, status: 'succeeded' });
+
+    // Stripe's own events about this refund find it booked and change nothing.
+    const created = await fakeEvent('refund.created', row!.stripeRefundId);
+    expect((await deliver(created)).status).toBe(200);
+    expect(await outcomeOf(created.id)).toBe('refund already recorded');
+    const charge = (await stripe.paymentIntents.retrieve(intentId)).latest_charge as string;
+    const chargeRefunded = await fakeEvent('charge.refunded', charge);
+    expect((await deliver(chargeRefunded)).status).toBe(200);
+    expect(await outcomeOf(chargeRefunded.id)).toBe('refunds all recorded');
+    expect(await standing(invoice.id)).toMatchObject({ state: 'partly-paid', balance: '60.00' });
+
+    const tooMuch = await refundPayment(invoice.id, payment.id, { amount: '150.01' });
+    expect(tooMuch.status).toBe(400);
+    expect(tooMuch.body.issues[0]).toMatchObject({ path: 'amount', message: 'At most the 150.00 not yet refunded of this payment.' });
+    const rest = await refundPayment(invoice.id, payment.id);
+    expect(rest.status).toBe(200);
+    expect(rest.body.payment).toMatchObject({ amountRefunded: '210.00', status: 'refunded' });
+    expect(rest.body.invoice).toMatchObject({ state: 'issued', balance: '210.00', amountPaid: '0.00' });
+    expect((await refundPayment(invoice.id, payment.id)).status).toBe(409);
+  });
+
+  it('books a refund made on Stripe itself from its signed event, once, however often it arrives', async () => {
+    const invoice = await issuedInvoice();
+    const { payment, intentId } = await paidByCard(invoice.id);
+    const refund = await stripe.refunds.create({ payment_intent: intentId, amount: 5000 });
+    const event = await fakeEvent('refund.created', refund.id);
+    const forged = await deliver(event, { secret: 'whsec_not_the_endpoint_secret' });
+    expect(forged.status).toBe(400);
+    expect(await standing(invoice.id)).toMatchObject({ state: 'paid' });
+
+    const copies = await Promise.all([deliver(event), deliver(event), deliver({ ...event, id: `evt_test_${randomUUID().replace(/-/g, '')}` })]);
+    expect(copies.map((c) => c.status)).toEqual([200, 200, 200]);
+    expect(await t.dbh.db.select().from(paymentRefunds).where(eq(paymentRefunds.paymentId, payment.id))).toHaveLength(1);
+    expect((await paymentsOf(invoice.id))[0]).toMatchObject({ amountRefunded: '50.00', status: 'succeeded' });
+    expect(await standing(invoice.id)).toMatchObject({ state: 'partly-paid', balance: '50.00', amountPaid: '160.00' });
+  });
+
+  it('refuses other roles, manual payments, and another operation’s payment', async () => {
+    const invoice = await issuedInvoice();
+    const { payment } = await paidByCard(invoice.id);
+    for (const role of ['partner', 'bookkeeper', 'customer', 'operator'] as const) expect((await refundPayment(invoice.id, payment.id, {}, tokens[role])).status, role).toBe(403);
+
+    const cheque = await issuedInvoice();
+    const recorded = await t.http().post(`/api/invoices/${cheque.id}/payments`).set(bearer(tokens.owner)).send({ method: 'cheque', amount: '10', receivedOn: '2025-05-20' });
+    expect((await refundPayment(cheque.id, recorded.body.payment.id)).status).toBe(409);
+    expect((await refundPayment(cheque.id, payment.id)).status).toBe(404);
+
+    const elsewhere = await createOperation(t.dbh.db, 'Another outfit');
+    const theirs = await signInAll(t, elsewhere);
+    expect((await refundPayment(invoice.id, payment.id, {}, theirs.owner)).status).toBe(404);
+    expect((await refundPayment(invoice.id, payment.id, { amount: '-5' })).status).toBe(400);
+    expect((await paymentsOf(invoice.id))[0]).toMatchObject({ amountRefunded: '0.00', status: 'succeeded' });
   });
 });

@@ -1,7 +1,7 @@
 import { Inject, Injectable, Logger } from '@nestjs/common';
 import { and, eq } from 'drizzle-orm';
 import Stripe from 'stripe';
-import { checkoutSessions, stripeEvents, type Executor } from '@hitchbook/db';
+import { checkoutSessions, payments, stripeEvents, type Executor } from '@hitchbook/db';
 import { fromCents } from '@hitchbook/shared/money';
 import { AppError } from '../../common/errors/app-error.js';
 import { AuditService } from '../../core/audit.service.js';
@@ -67,6 +67,11 @@ export class StripeWebhookService {
           .where(and(eq(checkoutSessions.stripeSessionId, event.data.object.id), eq(checkoutSessions.status, 'open')));
         return 'session expired';
       }
+      case 'refund.created':
+      case 'refund.updated':
+        return this.refunded(event.data.object, tx);
+      case 'charge.refunded':
+        return this.chargeRefunded(event.data.object, tx);
       case 'payment_intent.payment_failed':
         // The payer saw the decline on the checkout page; the invoice stays open as it was.
         return `card declined: ${event.data.object.last_payment_error?.message ?? 'no reason given'}`;
@@ -104,7 +109,34 @@ export class StripeWebhookService {
       tx,
     );
     if (!recorded.recorded) return 'payment already recorded';
-    return recorded.overpaid ? 'paid more than was open: refund the difference' : 'payment recorded';
+    return recorded.overpaid ? 'payment recorded: refund due to the payer' : 'payment recorded';
+  }
+
+  /** A refund made here or on Stripe's dashboard; one that did not go through books nothing. */
+  private async refunded(refund: Stripe.Refund, tx: Executor): Promise<string> {
+    if (refund.status !== 'succeeded' && refund.status !== 'pending') return `refund ${refund.status ?? 'without a status'}: nothing booked`;
+    const paymentIntentId = typeof refund.payment_intent === 'string' ? refund.payment_intent : refund.payment_intent?.id;
+    if (!paymentIntentId) return 'refund without a payment intent: nothing booked';
+    const outcome = await this.payments.recordRefund(
+      { stripeRefundId: refund.id, paymentIntentId, amountCents: refund.amount, reason: refund.reason ?? null, createdBy: null },
+      tx,
+    );
+    if (outcome.recorded) return 'refund recorded';
+    if (outcome.outcome.startsWith('mismatch')) this.logger.warn(`Refund ${refund.id}: ${outcome.outcome}; nothing booked.`);
+    return outcome.outcome;
+  }
+
+  /**
+   * Stripe sends this beside refund.created; the charge names only the total refunded, not which
+   * refunds, so it books nothing and only says whether the refund events have all been booked.
+   */
+  private async chargeRefunded(charge: Stripe.Charge, tx: Executor): Promise<string> {
+    const paymentIntentId = typeof charge.payment_intent === 'string' ? charge.payment_intent : charge.payment_intent?.id;
+    if (!paymentIntentId) return 'charge without a payment intent: ignored';
+    const [payment] = await tx.select({ amountRefunded: payments.amountRefunded }).from(payments).where(eq(payments.stripePaymentIntentId, paymentIntentId));
+    if (!payment) return 'refund of a payment not recorded here';
+    const charged = fromCents(charge.amount_refunded);
+    return charged.eq(payment.amountRefunded) ? 'refunds all recorded' : `charge shows ${charged.toFixed(2)} refunded, ${payment.amountRefunded} recorded: waiting for its refund events`;
   }
 
   /** A signed event that does not match what this server opened books nothing, and is kept for the owner to see. */
