@@ -19,6 +19,7 @@ import { InvoicesModule } from './modules/invoices/invoices.module.js';
 import { RateSheetsModule } from './modules/rate-sheets/rate-sheets.module.js';
 import { ReportsModule } from './modules/reports/reports.module.js';
 import { SquareUpsModule } from './modules/square-ups/square-ups.module.js';
+import { AuditModule } from './modules/audit/audit.module.js';
 
 @Module({})
 export class AppModule implements OnApplicationShutdown {
@@ -27,7 +28,7 @@ export class AppModule implements OnApplicationShutdown {
   static forRoot(config: AppConfig): DynamicModule {
     return {
       module: AppModule,
-      imports: [CoreModule.forRoot(config), JobsModule, AuthModule, HealthModule, PartiesModule, UsersModule, DashboardModule, EstimatesModule, RateSheetsModule, UploadsModule, MachinesModule, FieldsModule, WorkTypesModule, WorkEntriesModule, ReportsModule, SquareUpsModule, InvoicesModule, PaymentsModule],
+      imports: [CoreModule.forRoot(config), JobsModule, AuthModule, HealthModule, PartiesModule, UsersModule, DashboardModule, EstimatesModule, RateSheetsModule, UploadsModule, MachinesModule, FieldsModule, WorkTypesModule, WorkEntriesModule, ReportsModule, SquareUpsModule, InvoicesModule, PaymentsModule, AuditModule],
     };
   }
 

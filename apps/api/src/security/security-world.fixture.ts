@@ -38,6 +38,9 @@ export interface SecurityWorld {
   };
 }
 
+/** Card payments configured against an address nothing listens on: the security probes never get that far. */
+export const UNREACHABLE_STRIPE = { secretKey: 'sk_test_security', webhookSecret: 'whsec_security', host: '127.0.0.1', port: 9, protocol: 'http' as const };
+
 export const bearer = (token: string) => ({ Authorization: `Bearer ${token}` });
 
 async function ok<T extends { status: number; body: unknown }>(res: Promise<T> | T, what: string): Promise<T> {

@@ -1,4 +1,4 @@
-import { createHmac } from 'node:crypto';
+import { createHmac, createSign, generateKeyPairSync } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { memberships } from '@hitchbook/db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -108,6 +108,40 @@ describe('access tokens', () => {
     // The forging helper itself is sound: the same claims with the right secret pass.
     const ok = await t.http().get('/api/auth/me').set('Authorization', `Bearer ${forge(claims, t.config.jwtSecret)}`);
     expect(ok.status).toBe(200);
+  });
+
+  it('refuses a wrong issuer, a future nbf and any algorithm but HS256, even signed with the real secret', async () => {
+    const { token } = await signIn(t, fx.members.owner.email);
+    const claims = JSON.parse(Buffer.from(token.split('.')[1]!, 'base64url').toString()) as Record<string, unknown>;
+    const now = Math.floor(Date.now() / 1000);
+    const hs512 = (() => {
+      const head = `${b64url({ alg: 'HS512', typ: 'JWT' })}.${b64url(claims)}`;
+      return `${head}.${createHmac('sha512', t.config.jwtSecret).update(head).digest('base64url')}`;
+    })();
+    // RS/HS confusion: a token signed with a key pair of the attacker's, announcing RS256.
+    const rs256 = (() => {
+      const { privateKey } = generateKeyPairSync('rsa', { modulusLength: 2048 });
+      const head = `${b64url({ alg: 'RS256', typ: 'JWT' })}.${b64url(claims)}`;
+      return `${head}.${createSign('RSA-SHA256').update(head).sign(privateKey).toString('base64url')}`;
+    })();
+    const bad = {
+      issuer: forge({ ...claims, iss: 'someone-else' }, t.config.jwtSecret),
+      notYet: forge({ ...claims, nbf: now + 3600 }, t.config.jwtSecret),
+      hs512,
+      rs256,
+      noneUpper: `${b64url({ alg: 'NONE', typ: 'JWT' })}.${b64url(claims)}.`,
+    };
+    for (const [name, candidate] of Object.entries(bad)) {
+      const res = await t.http().get('/api/auth/me').set('Authorization', `Bearer ${candidate}`);
+      expect(res.status, name).toBe(401);
+    }
+    // A write route refuses them too, before its handler runs: nothing is created.
+    const parties = await t.dbh.db.query.parties.findMany({ where: (p, { eq }) => eq(p.operationId, fx.operationId) });
+    for (const candidate of Object.values(bad)) {
+      const res = await t.http().post('/api/parties').set('Authorization', `Bearer ${candidate}`).send({ kind: 'customer', name: 'Forged neighbour', relationship: 'neighbour' });
+      expect(res.status).toBe(401);
+    }
+    expect(await t.dbh.db.query.parties.findMany({ where: (p, { eq }) => eq(p.operationId, fx.operationId) })).toHaveLength(parties.length);
   });
 
   it('takes a removed membership away on the next request', async () => {
