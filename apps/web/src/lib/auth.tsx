@@ -1,10 +1,13 @@
 import { createContext, useCallback, useContext, useMemo, useSyncExternalStore, type ReactNode } from 'react';
 import type { SessionUser } from '@hitchbook/shared/schemas/auth';
-import { api, sessionStore, type Session } from './api';
+import { api, isApiError, sessionStore, type Session } from './api';
+import { forgetPhoneUser, offlineSession, readPhoneUser, rememberPhoneUser } from './offlineSession';
 import { queryClient } from './queryClient';
 import { noteServerError, noteServerSuccess } from './serviceStatus';
 
 let restoring: Promise<void> | null = null;
+
+rememberPhoneUser(sessionStore);
 
 /**
  * Asks the server once per page load whether the refresh cookie still holds a session. An
@@ -13,7 +16,12 @@ let restoring: Promise<void> | null = null;
 export function restoreSessionOnce(): Promise<void> {
   restoring ??= api.refreshSession().then(
     () => noteServerSuccess(),
-    (error: unknown) => noteServerError(error),
+    (error: unknown) => {
+      noteServerError(error);
+      // No signal: the person last signed in here keeps the cab form and their queue.
+      const phoneUser = isApiError(error) && error.status === 0 ? readPhoneUser() : null;
+      if (phoneUser) sessionStore.set(offlineSession(phoneUser));
+    },
   );
   return restoring;
 }
@@ -48,6 +56,7 @@ export function AuthProvider({ children }: { children: ReactNode }) {
     try {
       await api.signOut();
     } finally {
+      await forgetPhoneUser();
       // Cached rows belong to the person leaving; the next sign-in must not see them.
       queryClient.clear();
     }

@@ -3,6 +3,8 @@ import { AppShell, Burger, Group, Text } from '@mantine/core';
 import { useDisclosure } from '@mantine/hooks';
 import { Navigate, Outlet, useLocation } from 'react-router-dom';
 import { DatabaseDownNotice } from '../../components/DatabaseDownNotice';
+import { PhoneQueueStatus } from '../../features/offline/components/PhoneQueueStatus';
+import { PhoneQueueSync } from '../../features/offline/components/PhoneQueueSync';
 import { useAuth } from '../../lib/auth';
 import { paths } from '../../lib/paths';
 import { Brand } from './Brand';
@@ -54,6 +56,9 @@ export function AppLayout() {
 
       <AppShell.Main bg="slate.0">
         <DatabaseDownNotice />
+        <PhoneQueueSync userId={user.id} />
+        {/* The cab form shows the queue itself, beside the entries it lists. */}
+        {location.pathname !== paths.work.log() && <PhoneQueueStatus />}
         <Outlet />
       </AppShell.Main>
     </AppShell>

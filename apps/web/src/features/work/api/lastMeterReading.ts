@@ -2,6 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Page } from '@hitchbook/shared/schemas/common';
 import type { MeterReadingDto } from '@hitchbook/shared/schemas/machines';
 import { api } from '../../../lib/api';
+import { OFFLINE_FIRST } from '../../offline/networkMode';
 
 /** The newest reading comes first in the server's order: the meter start of the next pass. */
 export function getLastMeterReading(machineId: string, signal?: AbortSignal) {
@@ -12,6 +13,7 @@ export function getLastMeterReading(machineId: string, signal?: AbortSignal) {
 
 export function lastMeterReadingQueryOptions(machineId: string) {
   return queryOptions({
+    networkMode: OFFLINE_FIRST,
     queryKey: ['machines', 'detail', machineId, 'meter-readings', 'last'],
     queryFn: ({ signal }) => getLastMeterReading(machineId, signal),
   });

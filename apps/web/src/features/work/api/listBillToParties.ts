@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Page } from '@hitchbook/shared/schemas/common';
 import { api } from '../../../lib/api';
+import { OFFLINE_FIRST } from '../../offline/networkMode';
 
 export interface BillToParty {
   id: string;
@@ -16,7 +17,7 @@ export function listBillToParties(signal?: AbortSignal) {
 }
 
 export function billToPartiesQueryOptions() {
-  return queryOptions({ queryKey: ['parties', 'list', EVERY_PARTY, 'options'], queryFn: ({ signal }) => listBillToParties(signal), staleTime: 60_000 });
+  return queryOptions({ networkMode: OFFLINE_FIRST, queryKey: ['parties', 'list', EVERY_PARTY, 'options'], queryFn: ({ signal }) => listBillToParties(signal), staleTime: 60_000 });
 }
 
 export function useBillToParties() {

@@ -2,6 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Page } from '@hitchbook/shared/schemas/common';
 import type { FieldDto } from '@hitchbook/shared/schemas/fields';
 import { api } from '../../../lib/api';
+import { OFFLINE_FIRST } from '../../offline/networkMode';
 
 const FIELDS_IN_USE = { pageSize: 200, sort: 'name', archived: 'false' } as const;
 
@@ -11,7 +12,7 @@ export function listFieldOptions(signal?: AbortSignal) {
 }
 
 export function fieldOptionsQueryOptions() {
-  return queryOptions({ queryKey: ['fields', 'list', FIELDS_IN_USE, 'options'], queryFn: ({ signal }) => listFieldOptions(signal), staleTime: 60_000 });
+  return queryOptions({ networkMode: OFFLINE_FIRST, queryKey: ['fields', 'list', FIELDS_IN_USE, 'options'], queryFn: ({ signal }) => listFieldOptions(signal), staleTime: 60_000 });
 }
 
 export function useFieldOptions() {

@@ -2,6 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Page } from '@hitchbook/shared/schemas/common';
 import type { MachineDto } from '@hitchbook/shared/schemas/machines';
 import { api } from '../../../lib/api';
+import { OFFLINE_FIRST } from '../../offline/networkMode';
 
 const ACTIVE_MACHINES = { status: 'active', pageSize: 200, sort: 'name' } as const;
 
@@ -11,7 +12,7 @@ export function listMachineOptions(signal?: AbortSignal) {
 }
 
 export function machineOptionsQueryOptions() {
-  return queryOptions({ queryKey: ['machines', 'list', ACTIVE_MACHINES, 'options'], queryFn: ({ signal }) => listMachineOptions(signal), staleTime: 60_000 });
+  return queryOptions({ networkMode: OFFLINE_FIRST, queryKey: ['machines', 'list', ACTIVE_MACHINES, 'options'], queryFn: ({ signal }) => listMachineOptions(signal), staleTime: 60_000 });
 }
 
 export function useMachineOptions() {

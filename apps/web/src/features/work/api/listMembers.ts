@@ -2,6 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Role } from '@hitchbook/shared/roles';
 import type { Page } from '@hitchbook/shared/schemas/common';
 import { api } from '../../../lib/api';
+import { OFFLINE_FIRST } from '../../offline/networkMode';
 
 export interface Member {
   userId: string;
@@ -20,7 +21,7 @@ export function listMembers(signal?: AbortSignal) {
 }
 
 export function membersQueryOptions() {
-  return queryOptions({ queryKey: ['users', 'list', { pageSize: 200 }, 'options'], queryFn: ({ signal }) => listMembers(signal), staleTime: 60_000 });
+  return queryOptions({ networkMode: OFFLINE_FIRST, queryKey: ['users', 'list', { pageSize: 200 }, 'options'], queryFn: ({ signal }) => listMembers(signal), staleTime: 60_000 });
 }
 
 /** The people who can run a machine: owners, partners and operators who have signed in. */

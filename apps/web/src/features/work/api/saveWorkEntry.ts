@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient, type QueryClient } from '@tanstack/react-query';
+import type { QueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
 import type { workEntryCreateSchema, WorkEntryWithWarnings } from '@hitchbook/shared/schemas/work-entries';
 import { api } from '../../../lib/api';
@@ -17,9 +17,4 @@ export function saveWorkEntry(input: NewWorkEntry): Promise<WorkEntryWithWarning
 /** A logged entry moves a machine's meter and the tables that show it. */
 export async function refreshAfterEntryChange(queryClient: QueryClient): Promise<void> {
   await Promise.all([queryClient.invalidateQueries({ queryKey: ['work-entries'] }), queryClient.invalidateQueries({ queryKey: ['machines'] })]);
-}
-
-export function useSaveWorkEntry() {
-  const queryClient = useQueryClient();
-  return useMutation({ mutationFn: saveWorkEntry, onSuccess: () => refreshAfterEntryChange(queryClient) });
 }

@@ -1,10 +1,10 @@
 import { useRef, useState } from 'react';
 import { Stack } from '@mantine/core';
-import { workEntryCreateSchema, type WorkEntryWithWarnings } from '@hitchbook/shared/schemas/work-entries';
+import { workEntryCreateSchema } from '@hitchbook/shared/schemas/work-entries';
 import { FormErrorAlert } from '../../../components/FormErrorAlert';
 import { useServerForm } from '../../../lib/form';
 import { localDateIso } from '../../../lib/localTime';
-import { useSaveWorkEntry } from '../api/saveWorkEntry';
+import { useSaveOrQueueWorkEntry, type SaveOutcome } from '../../offline/phoneQueue';
 import { newClientId } from '../clientId';
 import { blankEntry, entryIssuePath, newEntryPayload } from '../entryForm';
 import { browserStore, readLastUsed, rememberLastUsed } from '../lastUsed';
@@ -15,25 +15,28 @@ interface NewEntryFormProps {
   userId: string;
   operatorName: string;
   options: EntryOptions;
-  onSaved: (entry: WorkEntryWithWarnings) => void;
+  onSaved: (outcome: SaveOutcome) => void;
 }
 
-/** A new entry from the cab: one clientId for as long as this entry is being sent, however often. */
+/**
+ * A new entry from the cab: one clientId for as long as this entry is being sent, however often,
+ * and kept on the phone when there is no signal to send it.
+ */
 export function NewEntryForm({ userId, operatorName, options, onSaved }: NewEntryFormProps) {
   const [clientId] = useState(newClientId);
   const [lastUsed] = useState(() => readLastUsed(browserStore(), userId));
   const intent = useRef<EntryIntent>('submitted');
   const [shownIntent, setShownIntent] = useState<EntryIntent>('submitted');
-  const save = useSaveWorkEntry();
+  const save = useSaveOrQueueWorkEntry(userId);
   const { form, onSubmit, formError, submitting } = useServerForm({
     schema: workEntryCreateSchema,
     initialValues: blankEntry(localDateIso(), userId, lastUsed),
     toPayload: (values) => newEntryPayload(values, clientId, intent.current),
     mutation: save,
     issuePath: entryIssuePath,
-    onSuccess: (entry) => {
-      rememberLastUsed(browserStore(), userId, { powerMachineId: entry.powerMachineId, implementMachineId: entry.implementMachineId });
-      onSaved(entry);
+    onSuccess: (outcome, values) => {
+      rememberLastUsed(browserStore(), userId, { powerMachineId: values.powerMachineId || null, implementMachineId: values.implementMachineId || null });
+      onSaved(outcome);
     },
   });
 

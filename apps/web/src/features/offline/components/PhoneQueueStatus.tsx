@@ -1,0 +1,76 @@
+import { Alert, Anchor, Button, Group, Progress, Stack, Text } from '@mantine/core';
+import { useNetwork } from '@mantine/hooks';
+import { IconAlertTriangle, IconCloudOff, IconDeviceMobile, IconSend } from '@tabler/icons-react';
+import { Link } from 'react-router-dom';
+import { paths } from '../../../lib/paths';
+import { sendWaiting, usePhoneQueue } from '../phoneQueue';
+
+export function waitingLabel(count: number): string {
+  return `Saved on this phone — ${count} waiting`;
+}
+
+/**
+ * The queue in one line for the shell and the cab form: how many entries wait, the send under
+ * way, and what the server refused. Says nothing when there is nothing on the phone and signal.
+ */
+export function PhoneQueueStatus({ showLink = true }: { showLink?: boolean }) {
+  const { userId, entries, progress, stopped } = usePhoneQueue();
+  const { online } = useNetwork();
+  const waiting = entries.filter((e) => e.state === 'waiting').length;
+  const refused = entries.filter((e) => e.state === 'refused');
+  if (!userId || (online && entries.length === 0 && !progress)) return null;
+
+  if (entries.length === 0 && !progress) {
+    return (
+      <Alert color="slate" variant="light" icon={<IconCloudOff />} mb="md" data-testid="queue-status">
+        No signal. Entries you log are kept on this phone and sent when the signal is back.
+      </Alert>
+    );
+  }
+
+  return (
+    <Stack gap="xs" mb="md" data-testid="queue-status">
+      {(waiting > 0 || progress) && (
+        <Alert color="harbor" variant="light" icon={<IconDeviceMobile />} title={waitingLabel(waiting)} data-testid="queue-waiting">
+          <Stack gap="xs">
+            {progress && progress.total > 0 ? (
+              <>
+                <Text size="sm" data-testid="queue-progress">
+                  Sending {Math.min(progress.done + 1, progress.total)} of {progress.total}…
+                </Text>
+                <Progress value={(progress.done / progress.total) * 100} aria-label="Sending progress" />
+              </>
+            ) : (
+              <Text size="sm">
+                {!online ? 'No signal: they go to the office once the phone is back in range.' : (stopped?.message ?? 'They are sent in the order they were logged.')}
+              </Text>
+            )}
+            <Group gap="sm">
+              <Button size="md" leftSection={<IconSend size={18} />} disabled={!online || Boolean(progress)} onClick={() => void sendWaiting(userId)}>
+                Send now
+              </Button>
+              {showLink && (
+                <Anchor component={Link} to={paths.work.log()}>
+                  See them
+                </Anchor>
+              )}
+            </Group>
+          </Stack>
+        </Alert>
+      )}
+      {refused.length > 0 && (
+        <Alert color="red" variant="light" icon={<IconAlertTriangle />} title={`${refused.length} not accepted by the server`} data-testid="queue-refused">
+          <Text size="sm">
+            {refused[0]!.reason}
+            {refused.length > 1 ? ` (and ${refused.length - 1} more)` : ''} Fix or delete {refused.length === 1 ? 'it' : 'them'}; nothing is sent until then.
+          </Text>
+          {showLink && (
+            <Anchor component={Link} to={paths.work.log()} size="sm">
+              Fix on the log page
+            </Anchor>
+          )}
+        </Alert>
+      )}
+    </Stack>
+  );
+}

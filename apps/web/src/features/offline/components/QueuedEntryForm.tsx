@@ -1,0 +1,58 @@
+import { useEffect } from 'react';
+import { Button, Group, Stack } from '@mantine/core';
+import { useMutation } from '@tanstack/react-query';
+import { workEntryCreateSchema } from '@hitchbook/shared/schemas/work-entries';
+import { FormErrorAlert } from '../../../components/FormErrorAlert';
+import { useServerForm } from '../../../lib/form';
+import type { NewWorkEntry } from '../../work/api/saveWorkEntry';
+import { EntryFields, type EntryOptions } from '../../work/components/EntryFields';
+import { entryIssuePath, newEntryPayload } from '../../work/entryForm';
+import type { QueuedEntry } from '../entryQueue';
+import { fixQueuedEntry } from '../phoneQueue';
+import { queuedEntryValues } from '../queuedEntryValues';
+
+interface QueuedEntryFormProps {
+  entry: QueuedEntry;
+  operatorName: string;
+  options: EntryOptions;
+  onDone: () => void;
+}
+
+/** Fixing an entry the server refused: the same fields, the server's issues on them, the same clientId. */
+export function QueuedEntryForm({ entry, operatorName, options, onDone }: QueuedEntryFormProps) {
+  const fix = useMutation({
+    networkMode: 'always',
+    mutationFn: (payload: NewWorkEntry) => fixQueuedEntry(entry.userId, entry.clientId, payload),
+  });
+  const state = entry.payload.state === 'draft' ? 'draft' : 'submitted';
+  const { form, onSubmit, formError, submitting } = useServerForm({
+    schema: workEntryCreateSchema,
+    initialValues: queuedEntryValues(entry.payload),
+    toPayload: (values) => newEntryPayload(values, entry.clientId, state),
+    mutation: fix,
+    issuePath: entryIssuePath,
+    onSuccess: onDone,
+  });
+
+  const { setErrors } = form;
+  useEffect(() => {
+    setErrors(Object.fromEntries(entry.issues.filter((i) => i.path).map((i) => [entryIssuePath(i.path), i.message])));
+  }, [entry.issues, setErrors]);
+
+  return (
+    <form onSubmit={onSubmit} noValidate data-testid="queued-entry-form">
+      <Stack gap="md">
+        <EntryFields form={form} options={options} operatorName={operatorName} lastUsed={{ powerMachineId: null, implementMachineId: null }} editing />
+        <FormErrorAlert message={formError} />
+        <Group>
+          <Button type="submit" size="lg" loading={submitting}>
+            Keep the fix and send
+          </Button>
+          <Button variant="default" size="lg" onClick={onDone}>
+            Cancel
+          </Button>
+        </Group>
+      </Stack>
+    </form>
+  );
+}
