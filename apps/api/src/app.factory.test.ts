@@ -12,6 +12,8 @@ beforeAll(async () => {
   mkdirSync(join(webDist, 'assets'));
   writeFileSync(join(webDist, 'index.html'), '<!doctype html><title>Hitchbook</title><div id="root"></div>');
   writeFileSync(join(webDist, 'assets', 'app-abc123.js'), 'console.log(1)');
+  writeFileSync(join(webDist, 'sw.js'), 'self.addEventListener("fetch", () => {});');
+  writeFileSync(join(webDist, 'manifest.webmanifest'), '{"name":"Hitchbook"}');
   t = await createTestApp({ webDist });
 });
 afterAll(() => t.close());
@@ -57,5 +59,20 @@ describe('HTTP surface', () => {
     const asset = await t.http().get('/assets/app-abc123.js');
     expect(asset.status).toBe(200);
     expect(asset.headers['cache-control']).toContain('immutable');
+  });
+
+  it('serves the service worker as a script that a phone checks for updates on every start', async () => {
+    const worker = await t.http().get('/sw.js');
+    expect(worker.status).toBe(200);
+    expect(worker.headers['content-type']).toMatch(/^(text|application)\/javascript/);
+    expect(worker.headers['cache-control']).toBe('no-cache');
+    expect(worker.text).toContain('addEventListener');
+  });
+
+  it('serves the install manifest with its own media type', async () => {
+    const manifest = await t.http().get('/manifest.webmanifest');
+    expect(manifest.status).toBe(200);
+    expect(manifest.headers['content-type']).toContain('application/manifest+json');
+    expect(manifest.headers['cache-control']).toBe('no-cache');
   });
 });

@@ -42,7 +42,7 @@ export function PhoneQueueList({ options, operatorName }: { options: EntryOption
                   {entry.payload.notes ? ` · ${entry.payload.notes}` : ''}
                 </Text>
               </Stack>
-              {entry.state === 'refused' ? <Badge color="red">Not accepted</Badge> : <Badge color="harbor">Waiting</Badge>}
+              {entry.state === 'refused' ? <Badge color="red" style={{ flexShrink: 0 }}>Not accepted</Badge> : <Badge color="harbor" style={{ flexShrink: 0 }}>Waiting</Badge>}
             </Group>
             {entry.state === 'refused' && (
               <>

@@ -3,7 +3,13 @@ import { useNetwork } from '@mantine/hooks';
 import { IconAlertTriangle, IconCloudOff, IconDeviceMobile, IconSend } from '@tabler/icons-react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../lib/paths';
+import type { QueuedEntry } from '../entryQueue';
 import { sendWaiting, usePhoneQueue } from '../phoneQueue';
+
+/** The server's own words on the first field it marked say more than its general message. */
+function refusalLine(entry: QueuedEntry): string {
+  return entry.issues[0]?.message ?? entry.reason ?? 'The server did not accept it.';
+}
 
 export function waitingLabel(count: number): string {
   return `Saved on this phone — ${count} waiting`;
@@ -61,7 +67,7 @@ export function PhoneQueueStatus({ showLink = true }: { showLink?: boolean }) {
       {refused.length > 0 && (
         <Alert color="red" variant="light" icon={<IconAlertTriangle />} title={`${refused.length} not accepted by the server`} data-testid="queue-refused">
           <Text size="sm">
-            {refused[0]!.reason}
+            {refusalLine(refused[0]!)}
             {refused.length > 1 ? ` (and ${refused.length - 1} more)` : ''} Fix or delete {refused.length === 1 ? 'it' : 'them'}; nothing is sent until then.
           </Text>
           {showLink && (
