@@ -9,9 +9,10 @@ import express, { type NextFunction, type Request, type Response } from 'express
 import helmet from 'helmet';
 import { AppModule } from './app.module.js';
 import { ErrorFilter } from './common/errors/error.filter.js';
+import { refuseOversizedJson } from './common/http/json-body-limit.js';
 import type { AppConfig } from './core/config.js';
 
-export const JSON_BODY_LIMIT = '256kb';
+export const JSON_BODY_LIMIT_BYTES = 256 * 1024;
 
 export interface CreateAppOptions {
   logger?: LogLevel[] | false;
@@ -27,10 +28,11 @@ export async function createApp(config: AppConfig, options: CreateAppOptions = {
 
 /** Everything around the Nest modules: shared by the server and by the tests' testing-module apps. */
 export function configureApp(app: NestExpressApplication, config: AppConfig): NestExpressApplication {
-  app.useBodyParser('json', { limit: JSON_BODY_LIMIT });
   app.set('trust proxy', false);
   app.disable('x-powered-by');
   app.use(securityHeaders(config));
+  app.use(refuseOversizedJson(JSON_BODY_LIMIT_BYTES));
+  app.useBodyParser('json', { limit: JSON_BODY_LIMIT_BYTES });
   app.use(cookieParser());
   app.use(requestId);
   app.use('/api', noStore);
@@ -56,7 +58,7 @@ function securityHeaders(config: AppConfig) {
         workerSrc: ["'self'"],
         manifestSrc: ["'self'"],
         objectSrc: ["'none'"],
-        baseUri: ["'self'"],
+        baseUri: ["'none'"],
         formAction: ["'self'"],
         frameAncestors: ["'none'"],
         ...(https ? { upgradeInsecureRequests: [] } : {}),
