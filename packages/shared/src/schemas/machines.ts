@@ -369,6 +369,8 @@ export interface MachineDto {
   notes: string | null;
   /** The share set in force today. */
   owners: MachineOwnerDto[];
+  /** The newest hour-meter reading (null when never read); given by the list and the single read. */
+  lastReading?: { readAt: string; hours: string; totalHours: string } | null;
   /** Money roles only; left out for operators. */
   listPrice?: string | null;
   purchasePrice?: string | null;

@@ -1,4 +1,5 @@
-import type { Machine } from '@hitchbook/db';
+import type { Machine, MeterReading } from '@hitchbook/db';
+import { Decimal } from 'decimal.js';
 import { machineClassOrThrow, type MachineClassId } from '@hitchbook/shared/machine-classes';
 import type { MachineDto, MachineOwnerDto } from '@hitchbook/shared/schemas/machines';
 import type { ShareRow } from './shares.repository.js';
@@ -6,7 +7,7 @@ import type { ShareRow } from './shares.repository.js';
 export const toOwnerDto = (row: ShareRow): MachineOwnerDto => ({ partyId: row.partyId, name: row.partyName, sharePct: row.sharePct });
 
 /** Prices are money: they are left out of the response altogether for roles that see no money. */
-export function toMachineDto(row: Machine, owners: readonly ShareRow[], withMoney: boolean): MachineDto {
+export function toMachineDto(row: Machine, owners: readonly ShareRow[], withMoney: boolean, lastReading?: MeterReading | null): MachineDto {
   const dto: MachineDto = {
     id: row.id,
     name: row.name,
@@ -33,6 +34,7 @@ export function toMachineDto(row: Machine, owners: readonly ShareRow[], withMone
     photoUploadId: row.photoUploadId,
     notes: row.notes,
     owners: owners.map(toOwnerDto),
+    ...(lastReading !== undefined && { lastReading: lastReading && lastReadingDto(lastReading) }),
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),
   };
@@ -41,4 +43,8 @@ export function toMachineDto(row: Machine, owners: readonly ShareRow[], withMone
     dto.purchasePrice = row.purchasePrice;
   }
   return dto;
+}
+
+function lastReadingDto(r: MeterReading): NonNullable<MachineDto['lastReading']> {
+  return { readAt: r.readAt.toISOString(), hours: r.hours, totalHours: new Decimal(r.offsetHours).plus(r.hours).toFixed(1) };
 }

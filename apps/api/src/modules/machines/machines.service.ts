@@ -14,6 +14,7 @@ import { todayIso } from './calendar.js';
 import { MachineAccess } from './machine-access.js';
 import { toMachineDto } from './machine-dto.js';
 import { MachinesRepository, type MachineValues } from './machines.repository.js';
+import { MeterReadingsRepository } from './meter-readings.repository.js';
 import { SharesRepository } from './shares.repository.js';
 import { SharesService } from './shares.service.js';
 
@@ -37,20 +38,22 @@ export class MachinesService {
     @Inject(UploadsService) private readonly uploads: UploadsService,
     @Inject(MachineAccess) private readonly access: MachineAccess,
     @Inject(AuditService) private readonly audit: AuditService,
+    @Inject(MeterReadingsRepository) private readonly readings: MeterReadingsRepository,
   ) {}
 
   async list(actor: Actor, query: MachineListQuery): Promise<Page<MachineDto>> {
     const today = todayIso();
     const { rows, total } = await this.machines.list(actor.operationId, query, today);
-    const owners = await this.shares.inForceOnForMachines(actor.operationId, rows.map((r) => r.id), today);
+    const ids = rows.map((r) => r.id);
+    const [owners, readings] = await Promise.all([this.shares.inForceOnForMachines(actor.operationId, ids, today), this.readings.latestOfMachines(actor.operationId, ids)]);
     const money = this.access.seesMoney(actor);
-    return { items: rows.map((r) => toMachineDto(r, owners.get(r.id) ?? [], money)), total, page: query.page, pageSize: query.pageSize };
+    return { items: rows.map((r) => toMachineDto(r, owners.get(r.id) ?? [], money, readings.get(r.id) ?? null)), total, page: query.page, pageSize: query.pageSize };
   }
 
   async get(actor: Actor, id: string): Promise<MachineDto> {
     const machine = await this.access.machineOrThrow(actor, 'machine.read', id);
-    const owners = await this.shares.inForceOn(actor.operationId, id, todayIso());
-    return toMachineDto(machine, owners, this.access.seesMoney(actor));
+    const [owners, readings] = await Promise.all([this.shares.inForceOn(actor.operationId, id, todayIso()), this.readings.latestOfMachines(actor.operationId, [id])]);
+    return toMachineDto(machine, owners, this.access.seesMoney(actor), readings.get(id) ?? null);
   }
 
   /**

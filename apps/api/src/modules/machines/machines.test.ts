@@ -111,6 +111,37 @@ describe('machines', () => {
     expect(bad.body.issues.map((i: { path: string }) => i.path).sort()).toEqual(['page', 'q', 'sort', 'status']);
   });
 
+  it("lists each machine's newest meter reading, the same one its meter history starts with", async () => {
+    const tag = `M${Date.now()}`;
+    const ids: string[] = [];
+    for (const name of ['A', 'B', 'C', 'D']) ids.push((await create(tokens.owner, { ...TRACTOR, name: `${tag} ${name}` })).body.id);
+    const [early, replaced, tied, never] = ids as [string, string, string, string];
+    const read = (id: string, body: Record<string, unknown>) => t.http().post(`/api/machines/${id}/meter-readings`).set(bearer(tokens.owner)).send(body);
+    // Entered out of time order: the newest by time wins, not the newest typed.
+    expect((await read(early, { readAt: '2025-05-02T08:00:00Z', hours: '1310.5' })).status).toBe(201);
+    expect((await read(early, { readAt: '2025-04-01T08:00:00Z', hours: '1290' })).status).toBe(201);
+    expect((await read(replaced, { readAt: '2025-03-01T08:00:00Z', hours: '4212' })).status).toBe(201);
+    expect((await read(replaced, { readAt: '2025-03-05T08:00:00Z', hours: 0, kind: 'reset', offsetHours: '4212' })).status).toBe(201);
+    expect((await read(replaced, { readAt: '2025-03-09T08:00:00Z', hours: '12.5' })).status).toBe(201);
+    // Two readings at the same moment: the one entered later counts, as in the history.
+    expect((await read(tied, { readAt: '2025-06-01T08:00:00Z', hours: '88' })).status).toBe(201);
+    expect((await read(tied, { readAt: '2025-06-01T08:00:00Z', hours: '88.4' })).status).toBe(201);
+
+    const list = await t.http().get(`/api/machines?q=${tag}&sort=name`).set(bearer(tokens.operator));
+    expect(list.status).toBe(200);
+    const listed = new Map(list.body.items.map((m: { id: string; lastReading: unknown }) => [m.id, m.lastReading]));
+    expect(listed.get(early)).toEqual({ readAt: '2025-05-02T08:00:00.000Z', hours: '1310.5', totalHours: '1310.5' });
+    expect(listed.get(replaced)).toEqual({ readAt: '2025-03-09T08:00:00.000Z', hours: '12.5', totalHours: '4224.5' });
+    expect(listed.get(tied)).toMatchObject({ hours: '88.4' });
+    expect(listed.get(never)).toBeNull();
+    for (const id of ids) {
+      const history = await t.http().get(`/api/machines/${id}/meter-readings?pageSize=1`).set(bearer(tokens.operator));
+      const first = history.body.items[0];
+      expect(listed.get(id)).toEqual(first ? { readAt: first.readAt, hours: first.hours, totalHours: first.totalHours } : null);
+      expect((await t.http().get(`/api/machines/${id}`).set(bearer(tokens.operator))).body.lastReading).toEqual(listed.get(id));
+    }
+  });
+
   it('deletes a machine entered by mistake but not one with history (409, then sold or retired)', async () => {
     const mistake = await create(tokens.owner, { name: 'Typo', classId: 'wagon', owners: [{ partyId: hA(), sharePct: 100 }] });
     expect((await t.http().delete(`/api/machines/${mistake.body.id}`).set(bearer(tokens.owner))).status).toBe(204);

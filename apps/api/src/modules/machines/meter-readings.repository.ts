@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, count, desc, eq, gt, lte } from 'drizzle-orm';
+import { and, asc, count, desc, eq, gt, inArray, lte } from 'drizzle-orm';
 import { meterReadings, type Executor, type MeterReading } from '@hitchbook/db';
 import { DB, type DbHandle } from '../../core/database.js';
 
@@ -32,6 +32,17 @@ export class MeterReadingsRepository {
       .orderBy(desc(meterReadings.readAt), desc(meterReadings.createdAt))
       .limit(limit);
     return rows.reverse();
+  }
+
+  /** The newest reading of each machine, in one query for a whole page of machines (same order as `page`). */
+  async latestOfMachines(operationId: string, machineIds: string[]): Promise<Map<string, MeterReading>> {
+    if (machineIds.length === 0) return new Map();
+    const rows = await this.dbh.db
+      .selectDistinctOn([meterReadings.machineId])
+      .from(meterReadings)
+      .where(and(eq(meterReadings.operationId, operationId), inArray(meterReadings.machineId, machineIds)))
+      .orderBy(meterReadings.machineId, desc(meterReadings.readAt), desc(meterReadings.createdAt));
+    return new Map(rows.map((r) => [r.machineId, r]));
   }
 
   /** The last reading at or before a moment: where a cab app takes the next entry's meter start from. */

@@ -56,7 +56,7 @@ const columns: MRT_ColumnDef<MachineDto>[] = [
       </Badge>
     ),
   },
-  { id: 'hours', header: 'Hour meter', enableSorting: false, Cell: ({ row }) => <MachineHours machineId={row.original.id} /> },
+  { id: 'hours', header: 'Hour meter', enableSorting: false, Cell: ({ row }) => <MachineHours reading={row.original.lastReading} /> },
 ];
 
 /** On a phone each machine is one cell, so nothing a person needs sits off screen. */
@@ -80,7 +80,7 @@ const compactColumns: MRT_ColumnDef<MachineDto>[] = [
             {m.classLabel} · {KIND_LABELS[m.kind]}
           </Text>
           <OwnersList owners={m.owners} />
-          {m.kind !== 'implement' && <MachineHours machineId={m.id} />}
+          {m.kind !== 'implement' && <MachineHours reading={m.lastReading} />}
         </Stack>
       );
     },
