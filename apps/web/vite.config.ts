@@ -20,5 +20,12 @@ export default defineConfig({
     sourcemap: true,
     // Mantine and React make a large but cacheable entry chunk; route chunks stay small.
     chunkSizeWarningLimit: 900,
+    rolldownOptions: {
+      output: {
+        // Mantine's own core (provider, factories, styles API) is under every component; left to the
+        // splitter it scatters over many small chunks that compress worse than one.
+        codeSplitting: { groups: [{ name: 'mantine-core', test: /@mantine[\\/]core[\\/]esm[\\/]core[\\/]/ }] },
+      },
+    },
   },
 });
