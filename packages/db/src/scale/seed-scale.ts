@@ -35,11 +35,15 @@ export function mulberry32(seed: number): () => number {
   };
 }
 
-/** A stable uuid for a key, so the same row gets the same id in every run. */
+/** A stable uuid for a key, so the same row gets the same id in every run; shaped as version 4, which the API's id checks expect. */
 export function stableId(key: string): string {
   const h = createHash('md5').update(key).digest('hex');
-  return `${h.slice(0, 8)}-${h.slice(8, 12)}-${h.slice(12, 16)}-${h.slice(16, 20)}-${h.slice(20, 32)}`;
+  return `${h.slice(0, 8)}-${h.slice(8, 12)}-4${h.slice(13, 16)}-8${h.slice(17, 20)}-${h.slice(20, 32)}`;
 }
+
+/** The same shaping in SQL, for ids made in bulk. */
+const SQL_STABLE_ID = `create function pg_temp.sid(key text) returns uuid language sql immutable
+  as $$ select overlay(overlay(md5(key) placing '4' from 13) placing '8' from 17)::uuid $$`;
 
 const SURNAMES = ['Aldercott', 'Brisby', 'Callowen', 'Dunmarrow', 'Eskvale', 'Fennick', 'Gorselund', 'Hathersage', 'Ilvane', 'Juniper', 'Kestrow', 'Larchmont', 'Millbury', 'Norrow', 'Oakhurst', 'Pellow', 'Quenby', 'Rushmere', 'Stavely', 'Thornbeck'];
 const FIRST = ['Ada', 'Bram', 'Cora', 'Dell', 'Esme', 'Finn', 'Greta', 'Hal', 'Ida', 'Jory', 'Kit', 'Lena', 'Milo', 'Nell', 'Otto', 'Pia', 'Rune', 'Sada', 'Tove', 'Wren'];
@@ -114,6 +118,8 @@ class Generator {
     await this.fleet(o);
     await this.rateSheets(o);
     await this.workHistory(o);
+    // The planner must see the rows just written, or the invoice statements join them blindly.
+    await this.q('analyze work_entries, parties, fields, work_types, rate_sheets, rate_sheet_lines');
     await this.invoices(o);
     await this.costs(o);
     await this.benchBatches(o);
@@ -259,7 +265,7 @@ class Generator {
       await this.q(
         `insert into work_entries (id, operation_id, work_date, operator_user_id, field_id, power_machine_id, implement_machine_id, work_type_id,
            hours, operator_hours, acres, miles, loads, each_count, fuel_gallons, bill_to_party_id, state, submitted_at, approved_at, approved_by, version, created_by)
-         select md5($1 || ':entry:' || g)::uuid, $2, d.work_date, d.operator, d.field, d.power, d.implement, d.work_type,
+         select pg_temp.sid($1 || ':entry:' || g), $2, d.work_date, d.operator, d.field, d.power, d.implement, d.work_type,
                 d.hours, d.hours, d.acres, d.miles, d.loads, 1, round(d.hours * 3.2, 3), d.bill_to, d.state,
                 case when d.state <> 'draft' then d.work_date + time '18:00' end,
                 case when d.state in ('approved', 'squared') then d.work_date + time '20:00' end,
@@ -296,7 +302,7 @@ class Generator {
     await this.q(`drop table if exists pg_temp.scale_invoice_months`);
     await this.q(
       `create temp table scale_invoice_months as
-       select md5($1 || ':invoice:' || month || ':' || party_id)::uuid as id, party_id, month,
+       select pg_temp.sid($1 || ':invoice:' || month || ':' || party_id) as id, party_id, month,
               row_number() over (order by month, party_id) as number
        from (
          select party_id, month from (
@@ -380,7 +386,7 @@ class Generator {
       const offset = (year - this.firstYear) * COSTS_PER_YEAR;
       await this.q(
         `insert into cost_entries (id, operation_id, machine_id, category, incurred_on, amount, gallons, vendor, paid_by_party_id, improvement_life_years, created_by)
-         select md5($1 || ':cost:' || g)::uuid, $2, c.machine, c.category, c.incurred_on,
+         select pg_temp.sid($1 || ':cost:' || g), $2, c.machine, c.category, c.incurred_on,
                 case when c.category = 'improvement' then 2000 + pg_temp.rnd($3, g, 23) % 12000 else round(20 + (pg_temp.rnd($3, g, 24) % 250000) / 100.0, 2) end,
                 case when c.category = 'fuel' then round(20 + (pg_temp.rnd($3, g, 25) % 30000) / 100.0, 3) end,
                 (array['Fenwold Co-op', 'Sorrel Creek Implement', 'Heron Bend Tire', 'Magpie Hill Fuel'])[1 + pg_temp.rnd($3, g, 26) % 4],
@@ -407,7 +413,7 @@ class Generator {
       await this.q(
         `insert into work_entries (id, operation_id, work_date, operator_user_id, field_id, power_machine_id, implement_machine_id, work_type_id,
            hours, operator_hours, acres, bill_to_party_id, state, submitted_at, approved_at, approved_by, created_by)
-         select md5($1 || ':bench:' || $2 || ':' || g)::uuid, $3, $4::date + g % 7, ($5::uuid[])[1 + g % cardinality($5::uuid[])],
+         select pg_temp.sid($1 || ':bench:' || $2 || ':' || g), $3, $4::date + g % 7, ($5::uuid[])[1 + g % cardinality($5::uuid[])],
                 ($6::uuid[])[1 + g % cardinality($6::uuid[])], ($7::uuid[])[1 + g % cardinality($7::uuid[])], ($8::uuid[])[1 + g % cardinality($8::uuid[])],
                 $9, round(1 + (g % 60) / 10.0, 2), round(1 + (g % 60) / 10.0, 2), round(5 + (g % 400) / 10.0, 3), $10, 'approved',
                 $4::date + g % 7 + time '18:00', $4::date + g % 7 + time '20:00', $11, ($5::uuid[])[1 + g % cardinality($5::uuid[])]
@@ -440,6 +446,7 @@ export async function seedScale(url: string, { years, log = console.log }: Scale
     // Each outfit is one transaction: a failed run leaves that outfit out entirely, never half of it.
     await client.query(`create function pg_temp.rnd(seed int, g int, k int) returns int language sql immutable
       as $$ select ('x' || substr(md5(seed || ':' || g || ':' || k), 1, 8))::bit(32)::int & 2147483647 $$`);
+    await client.query(SQL_STABLE_ID);
     const passwordHash = await bcrypt.hash(SCALE_PASSWORD, 12);
     for (const op of SCALE_OPERATIONS) {
       await client.query('begin');

@@ -95,6 +95,8 @@ export const workEntries = pgTable(
     index('work_entries_operation_implement_date_idx').on(t.operationId, t.implementMachineId, t.workDate),
     index('work_entries_operation_operator_date_idx').on(t.operationId, t.operatorUserId, t.workDate),
     index('work_entries_operation_work_type_date_idx').on(t.operationId, t.workTypeId, t.workDate),
+    // The table's default order (newest first, the same tie-breaks): a page is read off the index, not sorted.
+    index('work_entries_operation_recent_idx').on(t.operationId, t.workDate.desc().nullsLast(), t.startedAt.desc().nullsLast(), t.createdAt.desc().nullsLast(), t.id),
     check('work_entries_state_check', sql`${t.state} in ('draft', 'submitted', 'approved', 'invoiced', 'squared')`),
     check('work_entries_hours_check', sql`${t.hours} >= 0 and ${t.hours} <= 24`),
     check('work_entries_meter_order_check', sql`${t.meterStart} is null or ${t.meterEnd} is null or ${t.meterEnd} >= ${t.meterStart}`),

@@ -1,10 +1,12 @@
 import { sql, type SQL } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import pg from 'pg';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import type { Executor } from '@hitchbook/db';
 import { createOperation, type OperationFixture } from '../../test-support/fixtures.js';
 import { createTestApp, type TestApp } from '../../test-support/test-app.js';
 import { CustomIncomeRepository } from '../reports/custom-income.repository.js';
 import { MachineRatesService } from '../reports/machine-rates.service.js';
+import { WorkEntriesRepository } from '../work-entries/work-entries.repository.js';
 import { statementSums, yearBounds } from '@hitchbook/db/square-up-sums';
 import { Ledger } from './ledger.fixture.js';
 import { StatementRepository } from './statement.repository.js';
@@ -18,11 +20,13 @@ const ENTRIES_PER_OPERATION = 20_000;
 
 let t: TestApp;
 let op: OperationFixture;
+let history: History;
 
 interface PlanNode {
   'Node Type': string;
   'Relation Name'?: string;
   'Index Name'?: string;
+  'Index Cond'?: string;
   Plans?: PlanNode[];
 }
 
@@ -53,7 +57,51 @@ async function workEntryScans(queries: readonly SQL[]): Promise<PlanNode[][]> {
   return scans;
 }
 
-async function fillHistory(fx: OperationFixture): Promise<void> {
+interface History {
+  tractor: string;
+  cart: string;
+  field: string;
+  workType: string;
+}
+
+/** The statements a repository sends while `run` runs, captured from every pg client with their parameters. */
+async function sentStatements(run: () => Promise<unknown>): Promise<Array<{ text: string; values: unknown[] }>> {
+  const sent: Array<{ text: string; values: unknown[] }> = [];
+  const original = pg.Client.prototype.query;
+  const spy = vi.spyOn(pg.Client.prototype, 'query').mockImplementation(function (this: pg.Client, ...args: unknown[]) {
+    const config = args[0] as string | { text: string; values?: unknown[] };
+    if (typeof config === 'string') sent.push({ text: config, values: (args[1] as unknown[]) ?? [] });
+    else if (config?.text) sent.push({ text: config.text, values: config.values ?? (args[1] as unknown[]) ?? [] });
+    return (original as (...a: unknown[]) => unknown).apply(this, args);
+  } as typeof original);
+  try {
+    await run();
+  } finally {
+    spy.mockRestore();
+  }
+  return sent;
+}
+
+async function workEntryScansOfSent(sent: Array<{ text: string; values: unknown[] }>): Promise<PlanNode[][]> {
+  const scans: PlanNode[][] = [];
+  for (const { text, values } of sent.filter((s) => s.text.includes('"work_entries"') || s.text.includes('work_entries '))) {
+    const result = await t.dbh.pool.query<{ 'QUERY PLAN': Array<{ Plan: PlanNode }> }>(`explain (format json) ${text}`, values);
+    // A bitmap scan names the table on its heap node and the index on its child nodes.
+    const onEntries = nodes(result.rows[0]!['QUERY PLAN'][0]!.Plan).filter((n) => n['Relation Name'] === 'work_entries' || n['Index Name']?.startsWith('work_entries_'));
+    if (onEntries.length > 0) scans.push(onEntries);
+  }
+  return scans;
+}
+
+/** An index scan over the whole operation is no better than a sequential one: the year must bound the read. */
+function expectBoundedByDate(scans: PlanNode[][], label: string): void {
+  for (const scan of scans) {
+    expect(scan.map((n) => n['Node Type']), label).not.toContain('Seq Scan');
+    expect(scan.map((n) => n['Index Cond'] ?? '').join(' '), label).toContain('work_date');
+  }
+}
+
+async function fillHistory(fx: OperationFixture): Promise<History> {
   const ledger = new Ledger(t.dbh.db, fx);
   const [tractor, cart] = [await ledger.machine('History tractor'), await ledger.machine('History cart', { classId: 'grain-cart', kind: 'implement' })];
   await ledger.shares(tractor, '2015-01-01', [[fx.households[0], '60'], [fx.households[1], '40']]);
@@ -70,12 +118,13 @@ async function fillHistory(fx: OperationFixture): Promise<void> {
     insert into cost_entries (operation_id, machine_id, category, incurred_on, amount, paid_by_party_id)
     select ${fx.operationId}, ${tractor}, (array['fuel', 'repair', 'parts', 'insurance'])[1 + g % 4], date '2016-01-01' + (g % (365 * ${YEARS})), 120.50, ${fx.households[0]}
     from generate_series(1, ${ENTRIES_PER_OPERATION / 4}) as g`);
+  return { tractor, cart, field, workType };
 }
 
 beforeAll(async () => {
   t = await createTestApp();
   op = await createOperation(t.dbh.db, 'Ten years');
-  await fillHistory(op);
+  history = await fillHistory(op);
   await fillHistory(await createOperation(t.dbh.db, 'Neighbouring outfit'));
   await t.dbh.db.execute(sql`analyze work_entries`);
   await t.dbh.db.execute(sql`analyze cost_entries`);
@@ -107,5 +156,38 @@ describe('query plans of a year’s reports', () => {
     // Hours and acres, invoiced work, the neighbour sheet's rates, and the two field-cost queries.
     expect(scans.length).toBeGreaterThanOrEqual(5);
     for (const scan of scans) expect(scan.map((n) => n['Node Type'])).not.toContain('Seq Scan');
+  });
+});
+
+describe('query plans of the work-entry list', () => {
+  const year = { dateFrom: '2025-01-01', dateTo: '2025-12-31' };
+  const filters = (): Array<[string, Record<string, unknown>]> => [
+    ['the year', {}],
+    ['the year and a machine', { machineId: history.cart }],
+    ['the year and a field', { fieldId: history.field }],
+    ['the year and an operator', { operatorUserId: op.members.operator.userId }],
+    ['the year and who is billed', { billToPartyId: op.customers[0] }],
+    ['the year and a work type', { workTypeId: history.workType }],
+    ['the year and states', { state: ['draft', 'submitted'] }],
+  ];
+
+  it('reads work entries through an index for a page and its totals, whatever filter is added to the year', async () => {
+    const entries = t.app.get(WorkEntriesRepository);
+    for (const [label, extra] of filters()) {
+      for (const sort of ['-date', 'date']) {
+        const sent = await sentStatements(() => entries.list(op.operationId, { ...year, ...extra, sort } as never, {}, { limit: 50, offset: 0 }));
+        const scans = await workEntryScansOfSent(sent);
+        // The page of rows and the count with its sums.
+        expect(scans.length, label).toBe(2);
+        expectBoundedByDate(scans, `${label}, sorted ${sort}`);
+      }
+    }
+  });
+
+  it('reads work entries through an index for an operator who sees only their own entries', async () => {
+    const sent = await sentStatements(() => t.app.get(WorkEntriesRepository).list(op.operationId, { ...year, sort: '-date' } as never, { operatorUserId: op.members.operator.userId }, { limit: 50, offset: 0 }));
+    const scans = await workEntryScansOfSent(sent);
+    expect(scans.length).toBe(2);
+    expectBoundedByDate(scans, 'own entries');
   });
 });

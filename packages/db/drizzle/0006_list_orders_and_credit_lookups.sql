@@ -1,0 +1,4 @@
+CREATE INDEX "work_entries_operation_recent_idx" ON "work_entries" USING btree ("operation_id","work_date" DESC NULLS LAST,"started_at" DESC NULLS LAST,"created_at" DESC NULLS LAST,"id");--> statement-breakpoint
+CREATE INDEX "invoices_operation_created_idx" ON "invoices" USING btree ("operation_id","created_at");--> statement-breakpoint
+CREATE INDEX "invoices_operation_party_created_idx" ON "invoices" USING btree ("operation_id","party_id","created_at");--> statement-breakpoint
+CREATE INDEX "invoices_operation_credit_of_idx" ON "invoices" USING btree ("operation_id","credit_of_invoice_id") WHERE "invoices"."credit_of_invoice_id" is not null;
