@@ -5,6 +5,7 @@ import {
   IconClipboardList,
   IconFileInvoice,
   IconGauge,
+  IconHistory,
   IconMap2,
   IconScale,
   IconTags,
@@ -85,8 +86,8 @@ export const AREAS = [
     label: 'Invoices',
     href: paths.invoices(),
     icon: IconFileInvoice,
-    // Drafting, issuing and recording payments are the owner's; the server refuses them to others.
-    access: { owner: 'manage', partner: 'manage', bookkeeper: 'view' },
+    // Drafting, issuing, payments and refunds are the owner's; partner and bookkeeper read and download, as the server allows.
+    access: { owner: 'manage', partner: 'view', bookkeeper: 'view' },
   },
   {
     key: 'rates',
@@ -116,6 +117,8 @@ export const AREAS = [
     access: { owner: 'manage', partner: 'manage', bookkeeper: 'view' },
   },
   { key: 'users', label: 'Users', href: paths.users(), icon: IconUsers, access: { owner: 'manage', bookkeeper: 'view' } },
+  // Read only, for everyone who may see it: the log is never edited.
+  { key: 'audit', label: 'Audit log', href: paths.audit(), icon: IconHistory, access: { owner: 'view', bookkeeper: 'view' } },
   // A customer sees only the invoices addressed to them; the server scopes every read to their party.
   { key: 'myInvoices', label: 'My invoices', href: paths.myInvoices(), icon: IconFileInvoice, access: { customer: 'manage' } },
   { key: 'account', label: 'Account', href: paths.account(), icon: IconUserCircle, access: everyone },

@@ -6,7 +6,7 @@ const open = { kind: 'invoice', status: 'issued', total: '1414.20', balance: '14
 describe('what the invoice page offers', () => {
   it('lets the owner adjust, issue or delete a draft, and nothing else on it but the PDF', () => {
     const actions = invoiceActionsFor('owner', { ...open, status: 'draft', balance: '0.00' });
-    expect(actions).toEqual({ editDraft: true, issue: true, deleteDraft: true, downloadPdf: true, send: false, recordPayment: false, creditNote: false, void: false });
+    expect(actions).toEqual({ editDraft: true, issue: true, deleteDraft: true, downloadPdf: true, send: false, recordPayment: false, creditNote: false, void: false, refund: false });
   });
 
   it('lets the owner send, take a payment, credit or void an open invoice', () => {
@@ -22,14 +22,14 @@ describe('what the invoice page offers', () => {
     expect(creditedInFull).toMatchObject({ creditNote: false, void: false });
   });
 
-  it('takes no payment on a credit note, or on a void invoice', () => {
+  it('takes no payment on a credit note or a void invoice, yet refunds card money that reached a void one', () => {
     expect(invoiceActionsFor('owner', { ...open, kind: 'credit-note', total: '-100.00', balance: '0.00' })).toMatchObject({ recordPayment: false, creditNote: false });
-    expect(invoiceActionsFor('owner', { ...open, status: 'void', balance: '0.00' })).toMatchObject({ recordPayment: false, send: false, void: false });
+    expect(invoiceActionsFor('owner', { ...open, status: 'void', balance: '0.00' })).toMatchObject({ recordPayment: false, send: false, void: false, refund: true });
   });
 
   it('gives the partner and the bookkeeper the PDF only', () => {
     for (const role of ['partner', 'bookkeeper'] as const) {
-      expect(invoiceActionsFor(role, open)).toEqual({ editDraft: false, issue: false, deleteDraft: false, downloadPdf: true, send: false, recordPayment: false, creditNote: false, void: false });
+      expect(invoiceActionsFor(role, open)).toEqual({ editDraft: false, issue: false, deleteDraft: false, downloadPdf: true, send: false, recordPayment: false, creditNote: false, void: false, refund: false });
     }
   });
 });

@@ -1,5 +1,6 @@
 import { Decimal } from 'decimal.js';
 import type { Role } from '@hitchbook/shared/roles';
+import { accessTo } from '../../lib/areas';
 import type { InvoiceSummaryDto } from '@hitchbook/shared/schemas/invoices';
 
 export interface InvoiceActions {
@@ -11,16 +12,18 @@ export interface InvoiceActions {
   recordPayment: boolean;
   creditNote: boolean;
   void: boolean;
+  /** Card payments on the invoice may be refunded (by the owner, whatever state the invoice is in). */
+  refund: boolean;
 }
 
 type InvoiceFacts = Pick<InvoiceSummaryDto, 'kind' | 'status' | 'total' | 'balance' | 'amountPaid' | 'amountCredited'>;
 
 /**
- * Only the owner bills: the API refuses drafting, issuing, sending, payments, voids and credit
- * notes to everyone else, so the other money roles read and download.
+ * Only the owner bills: the API refuses drafting, issuing, sending, payments, refunds, voids and
+ * credit notes to everyone else, so the other money roles read and download.
  */
 export function canBill(role: Role): boolean {
-  return role === 'owner';
+  return accessTo(role, 'invoices') === 'manage';
 }
 
 /** What the invoice page offers for this invoice in its present state. */
@@ -43,5 +46,6 @@ export function invoiceActionsFor(role: Role, invoice: InvoiceFacts): InvoiceAct
     creditNote: owner && issued && isInvoice && leftToCredit,
     // Once money was received or credited, the record stays and a credit note corrects it instead.
     void: owner && issued && untouched,
+    refund: owner && isInvoice && invoice.status !== 'draft',
   };
 }

@@ -157,7 +157,7 @@ function InvoiceView({ invoice, role }: { invoice: InvoiceDto; role: Role }) {
           </Button>
         </Group>
       )}
-      {invoice.status !== 'draft' && invoice.kind === 'invoice' && <PaymentsPanel invoiceId={invoice.id} />}
+      {invoice.status !== 'draft' && invoice.kind === 'invoice' && <PaymentsPanel invoiceId={invoice.id} canRefund={actions.refund} />}
 
       <AddLineModal invoice={invoice} opened={dialog === 'addLine'} onClose={close} />
       <DiscountModal invoice={invoice} opened={dialog === 'discount'} onClose={close} />
