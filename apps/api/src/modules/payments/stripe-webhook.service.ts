@@ -11,6 +11,8 @@ import { InvoicePaymentsService } from '../invoices/invoice-payments.service.js'
 import { cardsNotConfigured } from './checkout.service.js';
 import { STRIPE } from './stripe-client.js';
 
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+const paymentNotBookedYet = () => new AppError('unavailable', 'The payment this refund belongs to is not booked yet; deliver the event again later.');
 const badSignature = () => new AppError('validation', 'The webhook signature does not verify.', [{ path: 'Stripe-Signature', message: 'Missing, stale or not made with this endpoint’s secret.' }]);
 
 /**
@@ -121,9 +123,34 @@ export class StripeWebhookService {
       { stripeRefundId: refund.id, paymentIntentId, amountCents: refund.amount, reason: refund.reason ?? null, createdBy: null },
       tx,
     );
+    if (!outcome.recorded && outcome.outcome === 'refund of a payment not recorded here' && (await this.isOurPendingPayment(paymentIntentId, tx))) {
+      // The refund overtook the event that books its payment. Recording it now would lose it for good,
+      // since a replay of a recorded event changes nothing; refusing makes Stripe deliver it again.
+      throw paymentNotBookedYet();
+    }
     if (outcome.recorded) return 'refund recorded';
     if (outcome.outcome.startsWith('mismatch')) this.logger.warn(`Refund ${refund.id}: ${outcome.outcome}; nothing booked.`);
     return outcome.outcome;
+  }
+
+  /** Whether Stripe says this payment intent was made by one of our checkouts, whose payment is simply not booked yet. */
+  private async isOurPendingPayment(paymentIntentId: string, tx: Executor): Promise<boolean> {
+    let intent: Stripe.PaymentIntent;
+    try {
+      intent = await this.stripe!.paymentIntents.retrieve(paymentIntentId);
+    } catch (err) {
+      if (err instanceof Stripe.errors.StripeInvalidRequestError) return false;
+      throw paymentNotBookedYet();
+    }
+    const invoiceId = intent.metadata?.invoiceId;
+    const operationId = intent.metadata?.operationId;
+    if (!invoiceId || !operationId || !UUID.test(invoiceId) || !UUID.test(operationId)) return false;
+    const [session] = await tx
+      .select({ id: checkoutSessions.id })
+      .from(checkoutSessions)
+      .where(and(eq(checkoutSessions.operationId, operationId), eq(checkoutSessions.invoiceId, invoiceId)))
+      .limit(1);
+    return session !== undefined;
   }
 
   /**
