@@ -1,8 +1,9 @@
 import { eq } from 'drizzle-orm';
-import { invoices, meterReadings } from '@hitchbook/db';
+import { invoices, meterReadings, operations, parties } from '@hitchbook/db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { addEntry, addNeighbourSheet, createBillingWorld, type BillingWorld } from '../modules/invoices/billing-world.fixture.js';
 import { createOperation, signInAll, type OperationFixture } from '../test-support/fixtures.js';
+import { waitForMail } from '../test-support/mailbox.js';
 import { createTestApp, type TestApp } from '../test-support/test-app.js';
 
 /** Requests a careless or hostile caller sends, each answered with a clear refusal and no change. */
@@ -64,5 +65,65 @@ describe('issuing a draft with nothing on it', () => {
     const issued = await t.http().post(`/api/invoices/${draft.body.id}/issue`).set(auth('owner')).send({});
     expect(issued.status).toBe(200);
     expect(issued.body.status).toBe('issued');
+  });
+});
+
+describe('header injection through names and e-mail addresses', () => {
+  const CRLF_VALUES = ['Hill Farm\r\nBcc: someone@evil.example', 'Hill Farm\nBcc: someone@evil.example', 'Hill Farm\rX-Injected: 1'];
+  const CRLF_EMAILS = ['neighbour@example.test\r\nBcc: someone@evil.example', 'neighbour@example.test\nCc: someone@evil.example', 'neighbour@example.test%0d%0aBcc:someone@evil.example'];
+
+  it('refuses line breaks in party names and e-mail addresses, on create and on change', async () => {
+    for (const name of CRLF_VALUES) {
+      const res = await t.http().post('/api/parties').set(auth('owner')).send({ kind: 'customer', name, relationship: 'neighbour' });
+      expect(res.status, JSON.stringify(name)).toBe(400);
+      expect(res.body.issues).toEqual([expect.objectContaining({ path: 'name' })]);
+      expect((await t.http().patch(`/api/parties/${fx.customers[0]}`).set(auth('owner')).send({ name })).status).toBe(400);
+    }
+    for (const email of CRLF_EMAILS) {
+      const res = await t.http().post('/api/parties').set(auth('owner')).send({ kind: 'customer', name: 'Hill Farm', relationship: 'neighbour', email });
+      expect(res.status, JSON.stringify(email)).toBe(400);
+      expect(res.body.issues).toEqual([expect.objectContaining({ path: 'email' })]);
+      expect((await t.http().patch(`/api/parties/${fx.customers[0]}`).set(auth('owner')).send({ email })).status).toBe(400);
+    }
+    const [party] = await t.dbh.db.select().from(parties).where(eq(parties.id, fx.customers[0]));
+    expect(party!.name).not.toMatch(/[\r\n]/);
+    expect(party!.email ?? '').not.toMatch(/[\r\n%]/);
+  });
+
+  it('refuses line breaks in invitations, in accepting one, and in the address an invoice is sent to', async () => {
+    for (const name of CRLF_VALUES) {
+      const res = await t.http().post('/api/users/invitations').set(auth('owner')).send({ email: 'helper@example.test', name, role: 'operator' });
+      expect(res.status).toBe(400);
+      const accept = await t.http().post('/api/auth/invitations/accept').send({ token: 'x'.repeat(32), name, password: 'long enough passphrase' });
+      expect(accept.status).toBe(400);
+      expect(JSON.stringify(accept.body.issues)).toContain('name');
+    }
+    for (const email of CRLF_EMAILS) {
+      expect((await t.http().post('/api/users/invitations').set(auth('owner')).send({ email, name: 'Helper', role: 'operator' })).status).toBe(400);
+      expect((await t.http().post('/api/auth/password-reset/request').send({ email })).status).toBe(400);
+    }
+    const [draft] = await t.dbh.db.insert(invoices).values({ operationId: fx.operationId, partyId: fx.customers[0], status: 'draft' }).returning({ id: invoices.id });
+    const send = await t.http().post(`/api/invoices/${draft!.id}/send`).set(auth('owner')).send({ to: CRLF_EMAILS[0] });
+    expect(send.status).toBe(400);
+    expect(send.body.issues).toEqual([expect.objectContaining({ path: 'to' })]);
+  });
+
+  it('keeps a line break already stored in a name out of the mail headers: one recipient, one-line subject', async () => {
+    const tag = Math.random().toString(36).slice(2, 8);
+    const to = `hill-${tag}@example.test`;
+    await t.dbh.db.update(operations).set({ name: `Hill Farm ${tag}\r\nBcc: someone@evil.example` }).where(eq(operations.id, fx.operationId));
+    await t.dbh.db.update(parties).set({ email: to }).where(eq(parties.id, fx.customers[0]));
+    await addEntry(t.dbh.db, world, { workDate: '2025-06-21', workTypeId: world.workTypes.mowing, fieldId: world.fields.creekBottom, billToPartyId: fx.customers[0], hours: '1.00', acres: '5.000' });
+    const draft = await t.http().post('/api/invoices/drafts').set(auth('owner')).send({ partyId: fx.customers[0], from: '2025-06-21', to: '2025-06-21' });
+    expect(draft.status).toBe(201);
+    expect((await t.http().post(`/api/invoices/${draft.body.id}/issue`).set(auth('owner')).send({})).status).toBe(200);
+    expect((await t.http().post(`/api/invoices/${draft.body.id}/send`).set(auth('owner')).send({})).status).toBeLessThan(300);
+    const mail = await waitForMail(to, tag, 20_000);
+    expect(mail.to).toEqual([to]);
+    expect(mail.subject).not.toMatch(/[\r\n]/);
+    const full = (await (await fetch(`${process.env.MAIL_API_URL!.replace(/\/$/, '')}/api/messages/${mail.id}`)).json()) as { headers: Record<string, string> };
+    const headerNames = Object.keys(full.headers).map((h) => h.toLowerCase());
+    expect(headerNames).not.toContain('bcc');
+    expect(headerNames).not.toContain('x-injected');
   });
 });
