@@ -131,9 +131,7 @@ async function fetchBlob(path: string, token: string | null): Promise<Response> 
   }
 }
 
-/** Fetches a protected file with the session's token and hands it to the browser as a download. */
-export async function downloadFile(path: string, query: Record<string, string | undefined> | undefined, fallbackName: string): Promise<void> {
-  const url = withQuery(path, query);
+async function fetchWithSession(url: string): Promise<Response> {
   const token = sessionStore.get()?.accessToken ?? null;
   let response = await fetchBlob(url, token);
   if (response.status === 401) {
@@ -142,6 +140,17 @@ export async function downloadFile(path: string, query: Record<string, string | 
     response = await fetchBlob(url, fresh);
   }
   if (!response.ok) throw transferErrorFrom(response.status, await response.text());
+  return response;
+}
+
+/** A protected file's bytes, for showing in the page (an image's object URL) rather than saving. */
+export async function fetchFile(path: string): Promise<Blob> {
+  return (await fetchWithSession(path)).blob();
+}
+
+/** Fetches a protected file with the session's token and hands it to the browser as a download. */
+export async function downloadFile(path: string, query: Record<string, string | undefined> | undefined, fallbackName: string): Promise<void> {
+  const response = await fetchWithSession(withQuery(path, query));
   const blob = await response.blob();
   const objectUrl = URL.createObjectURL(blob);
   const link = document.createElement('a');

@@ -1,6 +1,6 @@
 import { ActionIcon, Group, Tooltip } from '@mantine/core';
 import { notifications } from '@mantine/notifications';
-import { IconArrowBackUp, IconCircleCheck, IconPencil, IconSend } from '@tabler/icons-react';
+import { IconArrowBackUp, IconCircleCheck, IconEye, IconPencil, IconSend } from '@tabler/icons-react';
 import { Link } from 'react-router-dom';
 import type { WorkEntryDto } from '@hitchbook/shared/schemas/work-entries';
 import { paths } from '../../../lib/paths';
@@ -56,6 +56,13 @@ export function EntryRowActions({ entry, approver, mine }: EntryRowActionsProps)
         <Tooltip label="Change">
           <ActionIcon size="xl" variant="subtle" component={Link} to={paths.work.editEntry(entry.id)} aria-label={`Change ${what}`}>
             <IconPencil />
+          </ActionIcon>
+        </Tooltip>
+      )}
+      {mayChange && entry.state !== 'draft' && entry.state !== 'submitted' && (
+        <Tooltip label="Open with its photos">
+          <ActionIcon size="xl" variant="subtle" component={Link} to={paths.work.editEntry(entry.id)} aria-label={`Open ${what}`}>
+            <IconEye />
           </ActionIcon>
         </Tooltip>
       )}

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Alert, Box, Button, Skeleton } from '@mantine/core';
+import { Alert, Box, Button, Skeleton, Stack } from '@mantine/core';
 import { IconList } from '@tabler/icons-react';
 import { Link, useParams } from 'react-router-dom';
 import type { WorkEntryWithWarnings } from '@hitchbook/shared/schemas/work-entries';
@@ -13,6 +13,7 @@ import { useSessionUserOrThrow } from '../../../lib/auth';
 import { paths } from '../../../lib/paths';
 import { useWorkEntry } from '../api/getWorkEntry';
 import { EditEntryForm } from '../components/EditEntryForm';
+import { EntryPhotoGallery } from '../components/EntryPhotoGallery';
 import { SavedEntryPanel } from '../components/SavedEntryPanel';
 import { STATE_LABELS } from '../labels';
 import { useEntryOptions } from '../useEntryOptions';
@@ -52,8 +53,11 @@ export function Component() {
 
   return (
     <Box maw={720}>
-      <PageHeader title="Change an entry" description={entry.data ? `${entry.data.workDate} · ${entry.data.operatorName}` : undefined} />
-      {body}
+      <PageHeader title={entry.data && !EDITABLE.has(entry.data.state) ? 'Work entry' : 'Change an entry'} description={entry.data ? `${entry.data.workDate} · ${entry.data.operatorName}` : undefined} />
+      <Stack gap="md">
+        {body}
+        {entry.data && <EntryPhotoGallery entryId={entry.data.id} editable={EDITABLE.has((saved ?? entry.data).state)} />}
+      </Stack>
     </Box>
   );
 }
