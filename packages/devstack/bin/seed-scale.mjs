@@ -1,6 +1,7 @@
 #!/usr/bin/env node
-// The scale dataset for the benchmark: DATABASE_URL when set, else "hitchbook_scale" in the local cluster,
-// recreated for the run. Migrates, then generates two outfits (`--years 1` for one year instead of ten).
+// The scale dataset for the benchmark: DATABASE_URL when set, else "hitchbook_scale" in the local cluster
+// ("hitchbook_scale_1y" with `--years 1`, the one-year database the benchmark compares the reports with),
+// recreated for the run. Migrates, then generates two outfits.
 import { existsSync } from 'node:fs';
 import { runDatabaseScript } from '../lib/database.mjs';
 import { DevstackError } from '../lib/log.mjs';
@@ -10,7 +11,7 @@ import { usePostgres } from '../lib/pg-session.mjs';
 import { enterCleanup, installSignalHandlers, run } from '../lib/proc.mjs';
 
 const SCRIPT = 'packages/db/dist/scale/seed-scale.js';
-const USAGE = 'Usage: npm run db:seed:scale [-- --years 1..10]   (DATABASE_URL, default database hitchbook_scale)';
+const USAGE = 'Usage: npm run db:seed:scale [-- --years 1..10]   (DATABASE_URL, default database hitchbook_scale, or hitchbook_scale_<n>y for fewer years)';
 
 function parseArgs(args) {
   if (args.length === 0) return [];
@@ -27,11 +28,13 @@ async function seed(url, args) {
 async function main(argv) {
   const args = parseArgs(argv);
   if (process.env.DATABASE_URL) return seed(process.env.DATABASE_URL, args);
+  const years = args.length ? Number(args[1]) : 10;
+  const database = years === 10 ? 'hitchbook_scale' : `hitchbook_scale_${years}y`;
   const postgres = await usePostgres('seed-scale.mjs');
   try {
-    await dropDatabase('hitchbook_scale');
-    await createDatabase('hitchbook_scale');
-    await seed(postgres.url('hitchbook_scale'), args);
+    await dropDatabase(database);
+    await createDatabase(database);
+    await seed(postgres.url(database), args);
   } finally {
     enterCleanup();
     await postgres.release();
