@@ -5,6 +5,15 @@ import type { NewWorkEntry } from '../work/api/saveWorkEntry';
 /** Waiting to be sent, or refused by the server and waiting for the operator to fix or delete it. */
 export type QueuedState = 'waiting' | 'refused';
 
+/** A photo of the entry, kept as its bytes until the entry is on the server and the photo sent. */
+export interface QueuedPhoto {
+  id: string;
+  name: string;
+  type: string;
+  size: number;
+  blob: Blob;
+}
+
 /** One entry saved on the phone. Its clientId is the one the server sees on every send. */
 export interface QueuedEntry {
   clientId: string;
@@ -18,6 +27,10 @@ export interface QueuedEntry {
   reason: string | null;
   issues: ApiIssue[];
   attempts: number;
+  /** Photos still to send; each leaves the record once the server has it. */
+  photos: QueuedPhoto[];
+  /** The server stored the entry; only its photos are left (a refusal then concerns a photo). */
+  entryStored: boolean;
 }
 
 interface QueueSchema extends DBSchema {
@@ -31,7 +44,7 @@ export const QUEUE_DB_NAME = 'hitchbook-offline';
  * touches only their entries, so another person on a shared phone can neither see nor send them.
  */
 export interface EntryQueue {
-  add(userId: string, payload: NewWorkEntry): Promise<QueuedEntry>;
+  add(userId: string, payload: NewWorkEntry, photos?: QueuedPhoto[], entryStored?: boolean): Promise<QueuedEntry>;
   list(userId: string): Promise<QueuedEntry[]>;
   get(userId: string, clientId: string): Promise<QueuedEntry | null>;
   /** The operator fixed a refused entry: it waits again, under the same clientId. */
@@ -39,7 +52,15 @@ export interface EntryQueue {
   markRefused(userId: string, clientId: string, reason: string, issues: ApiIssue[]): Promise<void>;
   /** A try that did not get through (no signal, signed out, server trouble): the entry keeps waiting. */
   markUndelivered(userId: string, clientId: string, reason: string): Promise<void>;
+  /** The server stored the entry: from now on only the photos are sent. */
+  markEntryStored(userId: string, clientId: string): Promise<void>;
+  removePhoto(userId: string, clientId: string, photoId: string): Promise<void>;
   remove(userId: string, clientId: string): Promise<void>;
+}
+
+/** Records kept before photos were queued read as entries without photos. */
+function complete(entry: QueuedEntry): QueuedEntry {
+  return { ...entry, photos: entry.photos ?? [], entryStored: entry.entryStored ?? false };
 }
 
 export class QueueError extends Error {}
@@ -56,7 +77,7 @@ export function createEntryQueue(dbName = QUEUE_DB_NAME, now: () => number = Dat
 
   async function own(userId: string, clientId: string): Promise<QueuedEntry | null> {
     const entry = await (await db()).get('entries', clientId);
-    return entry && entry.userId === userId ? entry : null;
+    return entry && entry.userId === userId ? complete(entry) : null;
   }
 
   async function ownOrThrow(userId: string, clientId: string): Promise<QueuedEntry> {
@@ -70,7 +91,7 @@ export function createEntryQueue(dbName = QUEUE_DB_NAME, now: () => number = Dat
   const nextQueuedAt = () => (lastQueuedAt = Math.max(now(), lastQueuedAt + 1));
 
   return {
-    async add(userId, payload) {
+    async add(userId, payload, photos = [], entryStored = false) {
       const existing = await (await db()).get('entries', payload.clientId);
       if (existing) throw new QueueError('An entry with this device id is already waiting on this phone.');
       const entry: QueuedEntry = {
@@ -82,13 +103,15 @@ export function createEntryQueue(dbName = QUEUE_DB_NAME, now: () => number = Dat
         reason: null,
         issues: [],
         attempts: 0,
+        photos,
+        entryStored,
       };
       await (await db()).add('entries', entry);
       return entry;
     },
     async list(userId) {
       const range = IDBKeyRange.bound([userId, -Infinity], [userId, Infinity]);
-      return (await db()).getAllFromIndex('entries', 'byUser', range);
+      return (await (await db()).getAllFromIndex('entries', 'byUser', range)).map(complete);
     },
     get: own,
     async replace(userId, clientId, payload) {
@@ -104,6 +127,14 @@ export function createEntryQueue(dbName = QUEUE_DB_NAME, now: () => number = Dat
     async markUndelivered(userId, clientId, reason) {
       const entry = await ownOrThrow(userId, clientId);
       await (await db()).put('entries', { ...entry, reason, attempts: entry.attempts + 1 });
+    },
+    async markEntryStored(userId, clientId) {
+      const entry = await ownOrThrow(userId, clientId);
+      await (await db()).put('entries', { ...entry, entryStored: true });
+    },
+    async removePhoto(userId, clientId, photoId) {
+      const entry = await ownOrThrow(userId, clientId);
+      await (await db()).put('entries', { ...entry, photos: entry.photos.filter((p) => p.id !== photoId) });
     },
     async remove(userId, clientId) {
       await ownOrThrow(userId, clientId);

@@ -1,10 +1,13 @@
 import { useSyncExternalStore } from 'react';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { ApiError, sessionStore } from '../../lib/api';
+import { uploadFile } from '../../lib/fileTransfer';
 import { queryClient } from '../../lib/queryClient';
 import { refreshAfterEntryChange, saveWorkEntry, type NewWorkEntry } from '../work/api/saveWorkEntry';
-import { createEntryQueue, type QueuedEntry } from './entryQueue';
-import { classifyFailure, sendQueue, type SendProgress, type SendRun } from './sendQueue';
+import { newClientId } from '../work/clientId';
+import { createEntryQueue, type QueuedEntry, type QueuedPhoto } from './entryQueue';
+import { photoBudgetProblem } from './photoBudget';
+import { classifyFailure, sendQueue, type QueueServer, type SendProgress, type SendRun } from './sendQueue';
 
 /** What the shell and the cab form show about the signed-in person's entries on this phone. */
 export interface PhoneQueueStatus {
@@ -41,11 +44,20 @@ export function showQueueOf(userId: string | null): void {
  * Sends the server only what the same person queued: a run that outlives a sign-out or a
  * change of person stops instead of sending under someone else's sign-in.
  */
-function sendAs(userId: string) {
-  return (payload: NewWorkEntry) => {
-    if (sessionStore.get()?.user.id !== userId) return Promise.reject(new ApiError(401, 'Please sign in again.'));
-    return saveWorkEntry(payload);
+function serverAs(userId: string): QueueServer {
+  const samePerson = () => (sessionStore.get()?.user.id === userId ? null : new ApiError(401, 'Please sign in again.'));
+  return {
+    sendEntry: (payload) => samePerson() ? Promise.reject(samePerson()) : saveWorkEntry(payload),
+    sendPhoto: (entryId, photo) =>
+      samePerson()
+        ? Promise.reject(samePerson())
+        : uploadFile({ path: `/api/work-entries/${encodeURIComponent(entryId)}/photos`, file: new File([photo.blob], photo.name, { type: photo.type }) }),
   };
+}
+
+/** Bytes of photo the shown person has waiting, against the phone's photo budget. */
+export function photoBytesWaiting(entries: readonly QueuedEntry[]): number {
+  return entries.reduce((sum, entry) => sum + entry.photos.reduce((s, p) => s + p.size, 0), 0);
 }
 
 /** Whether the shown person has entries waiting to be sent (refused ones wait for a fix instead). */
@@ -58,7 +70,7 @@ export function sendWaiting(userId: string): Promise<SendRun> {
   if (running?.userId === userId) return running.run;
   const run = (async () => {
     try {
-      const result = await sendQueue(queue, userId, sendAs(userId), (progress) => {
+      const result = await sendQueue(queue, userId, serverAs(userId), (progress) => {
         if (status.userId === userId) update({ progress });
         void reload(userId);
       });
@@ -75,41 +87,62 @@ export function sendWaiting(userId: string): Promise<SendRun> {
   return run;
 }
 
-export type SaveOutcome = { kind: 'saved'; entry: Awaited<ReturnType<typeof saveWorkEntry>> } | { kind: 'queued'; waiting: number };
+export type SaveOutcome =
+  | { kind: 'saved'; entry: Awaited<ReturnType<typeof saveWorkEntry>>; photosWaiting: number }
+  | { kind: 'queued'; waiting: number };
 
-async function keep(userId: string, payload: NewWorkEntry): Promise<SaveOutcome> {
-  await queue.add(userId, payload);
+async function keep(userId: string, payload: NewWorkEntry, photos: QueuedPhoto[]): Promise<SaveOutcome> {
+  await queue.add(userId, payload, photos);
   await reload(userId);
   return { kind: 'queued', waiting: status.entries.length };
 }
 
+function asQueuedPhotos(files: readonly File[]): QueuedPhoto[] {
+  return files.map((file) => ({ id: newClientId(), name: file.name, type: file.type, size: file.size, blob: file }));
+}
+
 /**
  * The cab form's save. Without signal, or behind entries still waiting (so the office gets
- * them in order), the entry goes into the phone's queue. A send that fails for want of signal,
- * sign-in or a working server is queued too, under the same clientId, so if the server did
- * store it the resend is answered with that entry. A refusal is shown on the form as usual.
+ * them in order), the entry goes into the phone's queue with its photos. A send that fails for
+ * want of signal, sign-in or a working server is queued too, under the same clientId, so if the
+ * server did store it the resend is answered with that entry. A refusal is shown on the form as
+ * usual. Photos always travel through the queue, after their entry, within the photo budget.
  */
-export async function saveOrQueueWorkEntry(userId: string, payload: NewWorkEntry, online = navigator.onLine): Promise<SaveOutcome> {
-  const behind = (await queue.list(userId)).some((entry) => entry.state === 'waiting');
+export async function saveOrQueueWorkEntry(userId: string, payload: NewWorkEntry, files: readonly File[] = [], online = navigator.onLine): Promise<SaveOutcome> {
+  const entries = await queue.list(userId);
+  const overBudget = photoBudgetProblem(files, photoBytesWaiting(entries));
+  if (overBudget) throw new ApiError(400, overBudget);
+  const photos = asQueuedPhotos(files);
+  const behind = entries.some((entry) => entry.state === 'waiting');
   if (!online || behind) {
-    const outcome = await keep(userId, payload);
+    const outcome = await keep(userId, payload, photos);
     if (online) void sendWaiting(userId);
     return outcome;
   }
+  let entry: Awaited<ReturnType<typeof saveWorkEntry>>;
   try {
-    return { kind: 'saved', entry: await saveWorkEntry(payload) };
+    entry = await saveWorkEntry(payload);
   } catch (error) {
     if (classifyFailure(error).kind === 'refused') throw error;
-    return keep(userId, payload);
+    return keep(userId, payload, photos);
   }
+  if (photos.length > 0) {
+    await queue.add(userId, payload, photos, true);
+    await reload(userId);
+    void sendWaiting(userId);
+  }
+  return { kind: 'saved', entry, photosWaiting: photos.length };
 }
 
-/** The cab form's mutation: it runs with or without signal, since without it the entry is queued. */
-export function useSaveOrQueueWorkEntry(userId: string) {
+/**
+ * The cab form's mutation: it runs with or without signal, since without it the entry is queued.
+ * `photos` gives the photos picked on the form at the moment of saving.
+ */
+export function useSaveOrQueueWorkEntry(userId: string, photos: () => readonly File[] = () => []) {
   const client = useQueryClient();
   return useMutation({
     networkMode: 'always',
-    mutationFn: (payload: NewWorkEntry) => saveOrQueueWorkEntry(userId, payload),
+    mutationFn: (payload: NewWorkEntry) => saveOrQueueWorkEntry(userId, payload, photos()),
     onSuccess: (outcome) => (outcome.kind === 'saved' ? refreshAfterEntryChange(client) : undefined),
   });
 }

@@ -40,6 +40,7 @@ export function PhoneQueueList({ options, operatorName }: { options: EntryOption
                 <Text size="sm" c="dimmed">
                   {timingLine(entry)}
                   {entry.payload.notes ? ` · ${entry.payload.notes}` : ''}
+                  {entry.photos.length > 0 ? ` · ${entry.photos.length} photo${entry.photos.length === 1 ? '' : 's'}` : ''}
                 </Text>
               </Stack>
               {entry.state === 'refused' ? <Badge color="red" style={{ flexShrink: 0 }}>Not accepted</Badge> : <Badge color="harbor" style={{ flexShrink: 0 }}>Waiting</Badge>}
@@ -62,14 +63,18 @@ export function PhoneQueueList({ options, operatorName }: { options: EntryOption
               <QueuedEntryForm entry={entry} options={options} operatorName={operatorName} onDone={() => setFixing(null)} />
             ) : (
               <Group gap="sm">
-                {entry.state === 'refused' && options && (
+                {entry.state === 'refused' && !entry.entryStored && options && (
                   <Button variant="light" leftSection={<IconPencil size={18} />} onClick={() => setFixing(entry.clientId)}>
                     Fix
                   </Button>
                 )}
                 {confirming === entry.clientId ? (
                   <>
-                    <Text size="sm">Delete this entry from the phone? It was never stored by the office.</Text>
+                    <Text size="sm">
+                      {entry.entryStored
+                        ? 'Drop its photos from the phone? The entry itself is already at the office.'
+                        : 'Delete this entry from the phone? The office never got it.'}
+                    </Text>
                     <Button color="red" onClick={() => void deleteQueuedEntry(entry.userId, entry.clientId).then(() => setConfirming(null))}>
                       Delete it
                     </Button>
@@ -79,7 +84,7 @@ export function PhoneQueueList({ options, operatorName }: { options: EntryOption
                   </>
                 ) : (
                   <Button variant="subtle" color="red" leftSection={<IconTrash size={18} />} disabled={Boolean(progress)} onClick={() => setConfirming(entry.clientId)}>
-                    Delete
+                    {entry.entryStored ? 'Drop the photos' : 'Delete'}
                   </Button>
                 )}
               </Group>

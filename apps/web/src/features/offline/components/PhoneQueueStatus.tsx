@@ -4,7 +4,8 @@ import { IconAlertTriangle, IconCloudOff, IconDeviceMobile, IconSend } from '@ta
 import { Link } from 'react-router-dom';
 import { paths } from '../../../lib/paths';
 import type { QueuedEntry } from '../entryQueue';
-import { sendWaiting, usePhoneQueue } from '../phoneQueue';
+import { photoBudgetLine } from '../photoBudget';
+import { photoBytesWaiting, sendWaiting, usePhoneQueue } from '../phoneQueue';
 
 /** The server's own words on the first field it marked say more than its general message. */
 function refusalLine(entry: QueuedEntry): string {
@@ -49,6 +50,11 @@ export function PhoneQueueStatus({ showLink = true }: { showLink?: boolean }) {
             ) : (
               <Text size="sm">
                 {!online ? 'No signal: they go to the office once the phone is back in range.' : (stopped?.message ?? 'They are sent in the order they were logged.')}
+              </Text>
+            )}
+            {photoBytesWaiting(entries) > 0 && (
+              <Text size="sm" c="dimmed" data-testid="queue-photo-budget">
+                {photoBudgetLine(photoBytesWaiting(entries))}
               </Text>
             )}
             <Group gap="sm">
