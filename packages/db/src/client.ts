@@ -26,6 +26,10 @@ export function createDb(connectionString: string, options: { max?: number; appl
   });
   // A dropped idle connection (database restart) must not crash the process; the pool reconnects on next use.
   pool.on('error', () => undefined);
+  // A connection in use whose server goes away (pg_terminate_backend, an immediate shutdown) reports it as
+  // an 'error' event outside any query, which would end the process unheard. The query in flight fails on
+  // its own, and the pool drops the broken connection when it is given back.
+  pool.on('connect', (client) => client.on('error', () => undefined));
   const db = drizzle({ client: pool, schema, casing: 'snake_case' }) as Database;
   return { db, pool, close: () => pool.end() };
 }
