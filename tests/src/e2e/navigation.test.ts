@@ -19,10 +19,10 @@ const BILLING = ['Invoices', 'Rates'];
 
 // What each role is meant to see (product brief, roles and their navigation; apps/web/src/lib/areas.ts).
 const EXPECTED_NAVIGATION: Record<keyof typeof DEMO_SIGN_INS, string[]> = {
-  owner: ['Dashboard', ...FIELD_WORK, ...SETTLING, ...BILLING, ...ESTIMATES, 'Parties', 'Users', 'Account'],
+  owner: ['Dashboard', ...FIELD_WORK, ...SETTLING, ...BILLING, ...ESTIMATES, 'Parties', 'Users', 'Audit log', 'Account'],
   partner: ['Dashboard', ...FIELD_WORK, ...SETTLING, ...BILLING, ...ESTIMATES, 'Parties', 'Account'],
   operator: ['Dashboard', ...FIELD_WORK, 'Account'],
-  bookkeeper: ['Dashboard', ...FIELD_WORK, ...SETTLING, ...BILLING, ...ESTIMATES, 'Parties', 'Users', 'Account'],
+  bookkeeper: ['Dashboard', ...FIELD_WORK, ...SETTLING, ...BILLING, ...ESTIMATES, 'Parties', 'Users', 'Audit log', 'Account'],
   customer: ['Dashboard', 'My invoices', 'Account'],
   customer2: ['Dashboard', 'My invoices', 'Account'],
 };

@@ -85,6 +85,7 @@ export const routes: RouteObject[] = [
                 loader: requireArea('users'),
                 lazy: () => import('../features/users/routes/UsersPage'),
               },
+              { path: paths.audit(), loader: requireArea('audit'), lazy: () => import('../features/audit/routes/AuditLogPage') },
               {
                 path: paths.squareUps(),
                 loader: requireArea('squareUps'),

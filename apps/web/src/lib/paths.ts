@@ -50,6 +50,7 @@ export const paths = {
   account: () => '/account',
   parties: (query?: ListQuery & { kind?: 'household' | 'customer' }) => withQuery('/parties', query),
   users: (query?: ListQuery) => withQuery('/users', query),
+  audit: (query?: { entityType?: string; actorUserId?: string; from?: string; to?: string; page?: number }) => withQuery('/audit', query),
   machines: (query?: MachineListQuery) => withQuery('/machines', query),
   newMachine: () => '/machines/new',
   machine: (id: string) => `/machines/${id}`,

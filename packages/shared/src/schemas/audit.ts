@@ -17,7 +17,6 @@ export const AUDIT_ENTITY_TYPES = [
   'field',
   'work-type',
   'upload',
-  'session',
 ] as const;
 export type AuditEntityType = (typeof AUDIT_ENTITY_TYPES)[number];
 

@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, count, desc, eq, gte, lt, type SQL } from 'drizzle-orm';
+import { and, count, desc, eq, gte, lt, notLike, type SQL } from 'drizzle-orm';
 import { auditLog, users } from '@hitchbook/db';
 import type { AuditListQuery } from '@hitchbook/shared/schemas/audit';
 import { DB, type DbHandle } from '../../core/database.js';
@@ -16,7 +16,8 @@ export class AuditRepository {
   constructor(@Inject(DB) private readonly dbh: DbHandle) {}
 
   async page(operationId: string, q: AuditListQuery) {
-    const where: SQL[] = [eq(auditLog.operationId, operationId)];
+    // Sign-ins are recorded for security reviews but change nothing, so the reader of changes leaves them out.
+    const where: SQL[] = [eq(auditLog.operationId, operationId), notLike(auditLog.action, 'auth.%')];
     if (q.entityType) where.push(eq(auditLog.entityType, q.entityType));
     if (q.entityId) where.push(eq(auditLog.entityId, q.entityId));
     if (q.actorUserId) where.push(eq(auditLog.actorUserId, q.actorUserId));
