@@ -1,3 +1,4 @@
+import './lib/zod-no-eval';
 import '@fontsource/lato/400.css';
 import '@fontsource/lato/700.css';
 import '@mantine/core/styles.css';
