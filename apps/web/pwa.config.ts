@@ -33,19 +33,17 @@ export function pwaPlugin() {
       clientsClaim: true,
       skipWaiting: true,
       cleanupOutdatedCaches: true,
-      // The cab form's reads: the pickers (machines, fields, work types, parties, members) and each
-      // machine's last meter reading. ENTRY_DATA_CACHE is deleted when the person on the phone changes.
+      // The cab form's reads (pickers and last meter readings), marked by the app with a header.
+      // ENTRY_DATA_CACHE is deleted when the person on the phone changes.
       runtimeCaching: [
         {
-          urlPattern: ({ url, request, sameOrigin }) =>
-            sameOrigin &&
-            request.method === 'GET' &&
-            /^\/api\/(machines|fields|work-types|parties|users)$|^\/api\/machines\/[^/]+\/meter-readings$/.test(url.pathname),
+          // Serialized into the worker, so the header name is written out here (networkMode.ts).
+          urlPattern: ({ request, sameOrigin }) => sameOrigin && request.method === 'GET' && request.headers.get('X-Hitchbook-Offline') === 'keep',
           handler: 'NetworkFirst',
           options: {
             cacheName: ENTRY_DATA_CACHE,
             // A field edge with one bar of signal: fall back to the kept copy rather than wait.
-            networkTimeoutSeconds: 5,
+            networkTimeoutSeconds: 10,
             cacheableResponse: { statuses: [200] },
             expiration: { maxEntries: 300, maxAgeSeconds: 30 * 24 * 60 * 60 },
           },

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Page } from '@hitchbook/shared/schemas/common';
 import { api } from '../../../lib/api';
-import { OFFLINE_FIRST } from '../../offline/networkMode';
+import { KEEP_FOR_OFFLINE, OFFLINE_FIRST } from '../../offline/networkMode';
 
 export interface BillToParty {
   id: string;
@@ -13,7 +13,7 @@ const EVERY_PARTY = { pageSize: 200, sort: 'name' } as const;
 
 /** Work is billed to a household of the outfit (squared up) or to a customer (invoiced). */
 export function listBillToParties(signal?: AbortSignal) {
-  return api.get<Page<BillToParty>>('/api/parties', { query: EVERY_PARTY, signal }).then((page) => page.items);
+  return api.get<Page<BillToParty>>('/api/parties', { query: EVERY_PARTY, signal, headers: KEEP_FOR_OFFLINE }).then((page) => page.items);
 }
 
 export function billToPartiesQueryOptions() {

@@ -2,7 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Role } from '@hitchbook/shared/roles';
 import type { Page } from '@hitchbook/shared/schemas/common';
 import { api } from '../../../lib/api';
-import { OFFLINE_FIRST } from '../../offline/networkMode';
+import { KEEP_FOR_OFFLINE, OFFLINE_FIRST } from '../../offline/networkMode';
 
 export interface Member {
   userId: string;
@@ -17,7 +17,7 @@ export const MEMBER_READERS: readonly Role[] = ['owner', 'bookkeeper'];
 const LOGGERS: readonly Role[] = ['owner', 'partner', 'operator'];
 
 export function listMembers(signal?: AbortSignal) {
-  return api.get<Page<Member>>('/api/users', { query: { pageSize: 200 }, signal }).then((page) => page.items);
+  return api.get<Page<Member>>('/api/users', { query: { pageSize: 200 }, signal, headers: KEEP_FOR_OFFLINE }).then((page) => page.items);
 }
 
 export function membersQueryOptions() {
