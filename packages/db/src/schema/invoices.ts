@@ -66,9 +66,9 @@ export const invoices = pgTable(
     index('invoices_operation_party_status_idx').on(t.operationId, t.partyId, t.status),
     index('invoices_operation_status_due_idx').on(t.operationId, t.status, t.dueDate),
     index('invoices_operation_number_idx').on(t.operationId, t.number),
-    // The lists sort by creation newest first, for the whole operation or for one customer.
-    index('invoices_operation_created_idx').on(t.operationId, t.createdAt),
-    index('invoices_operation_party_created_idx').on(t.operationId, t.partyId, t.createdAt),
+    // The lists' default order (newest first, then id), for the whole operation or for one customer: a page is read off the index.
+    index('invoices_operation_created_idx').on(t.operationId, t.createdAt.desc().nullsFirst(), t.id),
+    index('invoices_operation_party_created_idx').on(t.operationId, t.partyId, t.createdAt.desc().nullsFirst(), t.id),
     // Every listed invoice's balance subtracts its credit notes: a lookup per row, not a scan.
     index('invoices_operation_credit_of_idx').on(t.operationId, t.creditOfInvoiceId).where(sql`${t.creditOfInvoiceId} is not null`),
     check('invoices_kind_check', sql`${t.kind} in ('invoice', 'credit-note')`),
