@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { and, eq, inArray } from 'drizzle-orm';
+import { and, eq, inArray, sql } from 'drizzle-orm';
 import { createDb, invoiceCounters, invoiceEntries, invoices, workEntries, type DbHandle } from '@hitchbook/db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ApiProcess } from '../test-support/api-process.js';
@@ -76,6 +76,9 @@ describe('the API killed between the commit of an issue and its reply', () => {
     expect(await billingState(dbh.db, world.fx.operationId)).toEqual({ numbers: { INV: [1, 2] }, entriesOnTwoInvoices: [], partlyIssued: [], lockedByDraft: [] });
     const [counter] = await dbh.db.select().from(invoiceCounters).where(and(eq(invoiceCounters.operationId, world.fx.operationId), eq(invoiceCounters.series, 'INV')));
     expect(counter?.nextNumber).toBe(3);
+    // Issued once: one audit row, though the request arrived twice.
+    const audited = await dbh.db.execute(sql`select 1 from audit_log where entity_id = ${id} and action = 'invoice.issued'`);
+    expect(audited.rows).toHaveLength(1);
     const states = await dbh.db.select({ state: workEntries.state }).from(workEntries).where(inArray(workEntries.id, entries));
     expect(states.map((s) => s.state)).toEqual(['invoiced', 'invoiced']);
   }, 120_000);
