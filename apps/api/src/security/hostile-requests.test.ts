@@ -1,3 +1,7 @@
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { eq } from 'drizzle-orm';
 import { invoices, meterReadings, operations, parties } from '@hitchbook/db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -125,5 +129,41 @@ describe('header injection through names and e-mail addresses', () => {
     const headerNames = Object.keys(full.headers).map((h) => h.toLowerCase());
     expect(headerNames).not.toContain('bcc');
     expect(headerNames).not.toContain('x-injected');
+  });
+});
+
+describe('NUL characters, which PostgreSQL text cannot hold', () => {
+  it('refuses them in a search and in a body with 400 naming the field, not a database failure', async () => {
+    const search = await t.http().get('/api/parties').query({ q: 'Hill\u0000' }).set(auth('owner'));
+    expect(search.status).toBe(400);
+    expect(search.body.issues).toEqual([{ path: 'q', message: 'Text may not contain NUL characters.' }]);
+    const body = await t.http().patch(`/api/parties/${fx.customers[0]}`).set(auth('owner')).send({ notes: 'gate code\u00001234' });
+    expect(body.status).toBe(400);
+    expect(body.body.issues[0].path).toBe('notes');
+  });
+});
+
+describe('names in scripts the PDF font cannot draw', () => {
+  it('prints a 120-character name on the invoice inside the page, each undrawable character as "?"', async () => {
+    const name = `Hill ${'漢字🚜'.repeat(38)}Farm`;
+    await t.dbh.db.update(parties).set({ name, email: null }).where(eq(parties.id, fx.customers[0]));
+    await addEntry(t.dbh.db, world, { workDate: '2025-06-25', workTypeId: world.workTypes.mowing, fieldId: world.fields.creekBottom, billToPartyId: fx.customers[0], hours: '1.00', acres: '5.000' });
+    const draft = await t.http().post('/api/invoices/drafts').set(auth('owner')).send({ partyId: fx.customers[0], from: '2025-06-25', to: '2025-06-25' });
+    expect((await t.http().post(`/api/invoices/${draft.body.id}/issue`).set(auth('owner')).send({})).status).toBe(200);
+    const pdf = await t.http().get(`/api/invoices/${draft.body.id}/pdf`).set(auth('owner')).buffer(true).parse((res, cb) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
+    expect(pdf.status).toBe(200);
+    const file = join(mkdtempSync(join(tmpdir(), 'hb-pdf-')), 'invoice.pdf');
+    writeFileSync(file, pdf.body as Buffer);
+    const text = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+    expect(text).toContain('Hill ???????');
+    // Every word's right edge stays inside the 612 pt page less its 50 pt margin.
+    const bbox = execFileSync('pdftotext', ['-bbox', file, '-'], { encoding: 'utf8' });
+    const rightEdges = [...bbox.matchAll(/xMax="([\d.]+)"/g)].map((m) => Number(m[1]));
+    expect(rightEdges.length).toBeGreaterThan(10);
+    expect(Math.max(...rightEdges)).toBeLessThanOrEqual(562.5);
   });
 });

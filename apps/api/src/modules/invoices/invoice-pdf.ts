@@ -2,7 +2,7 @@ import PDFDocument from 'pdfkit';
 import { Dec } from '@hitchbook/shared/decimal';
 import { formatMoney } from '@hitchbook/shared/money';
 import type { InvoiceDto, InvoiceLineDto } from '@hitchbook/shared/schemas/invoices';
-import { LATO_BOLD, LATO_REGULAR } from '../../common/pdf/lato.js';
+import { LATO_BOLD, LATO_REGULAR, printOnlyDrawable } from '../../common/pdf/lato.js';
 
 
 const MARGIN = 50;
@@ -57,7 +57,7 @@ function titleOf(invoice: InvoiceDto): string {
  * unit, rate and amount, the totals, the terms and how to pay. Figures come from the stored lines only.
  */
 export function renderInvoicePdf(invoice: InvoiceDto): Promise<Buffer> {
-  const doc = new PDFDocument({ size: 'LETTER', margin: MARGIN, info: { Title: `${titleOf(invoice)} ${invoice.numberLabel ?? ''}`.trim(), Author: invoice.issuer.name } });
+  const doc = printOnlyDrawable(new PDFDocument({ size: 'LETTER', margin: MARGIN, info: { Title: `${titleOf(invoice)} ${invoice.numberLabel ?? ''}`.trim(), Author: invoice.issuer.name } }));
   doc.registerFont('Lato', LATO_REGULAR);
   doc.registerFont('Lato-Bold', LATO_BOLD);
   const chunks: Buffer[] = [];
@@ -88,9 +88,9 @@ export function renderInvoicePdf(invoice: InvoiceDto): Promise<Buffer> {
   for (const fact of facts) if (fact) doc.text(fact, { width: width / 2, align: 'right' });
   doc.y = Math.max(leftBottom, doc.y) + 18;
 
-  doc.font('Lato-Bold').fontSize(10).text('Bill to', MARGIN, doc.y);
-  doc.font('Lato').fontSize(10).text(invoice.party.name);
-  for (const part of [invoice.party.address, invoice.party.email]) if (part) doc.text(part);
+  doc.font('Lato-Bold').fontSize(10).text('Bill to', MARGIN, doc.y, { width });
+  doc.font('Lato').fontSize(10).text(invoice.party.name, { width });
+  for (const part of [invoice.party.address, invoice.party.email]) if (part) doc.text(part, { width });
   doc.moveDown(1.2);
 
   drawTable(doc, invoice.lines.map(rowOf));

@@ -1,7 +1,7 @@
 import { StreamableFile } from '@nestjs/common';
 import PDFDocument from 'pdfkit';
 import { attachmentDisposition } from '../../common/csv/csv-writer.js';
-import { LATO_BOLD, LATO_REGULAR } from '../../common/pdf/lato.js';
+import { LATO_BOLD, LATO_REGULAR, printOnlyDrawable } from '../../common/pdf/lato.js';
 
 // A plain printed report: a title, short paragraphs and tables that carry their header onto each new
 // page. Lato is embedded from the font files shipped with the API, so the PDF prints the same everywhere.
@@ -23,7 +23,7 @@ export class PdfReport {
   private readonly done: Promise<Buffer>;
 
   constructor(title: string, subtitle: string) {
-    this.doc = new PDFDocument({ size: 'LETTER', margin: MARGIN, info: { Title: title, Creator: 'Hitchbook' } });
+    this.doc = printOnlyDrawable(new PDFDocument({ size: 'LETTER', margin: MARGIN, info: { Title: title, Creator: 'Hitchbook' } }));
     this.doc.registerFont('regular', LATO_REGULAR);
     this.doc.registerFont('bold', LATO_BOLD);
     this.doc.on('data', (chunk: Buffer) => this.chunks.push(chunk));
