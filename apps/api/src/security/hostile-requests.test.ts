@@ -3,7 +3,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { eq } from 'drizzle-orm';
-import { invoices, meterReadings, operations, parties } from '@hitchbook/db';
+import { invoices, machines, memberships, meterReadings, operations, parties, uploads } from '@hitchbook/db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { addEntry, addNeighbourSheet, createBillingWorld, type BillingWorld } from '../modules/invoices/billing-world.fixture.js';
 import { createOperation, signInAll, type OperationFixture } from '../test-support/fixtures.js';
@@ -165,5 +165,77 @@ describe('names in scripts the PDF font cannot draw', () => {
     const rightEdges = [...bbox.matchAll(/xMax="([\d.]+)"/g)].map((m) => Number(m[1]));
     expect(rightEdges.length).toBeGreaterThan(10);
     expect(Math.max(...rightEdges)).toBeLessThanOrEqual(562.5);
+  });
+});
+
+describe('requests that reach past what the screens send', () => {
+  it('answers 400 to upload ids that try to walk the file system, and 404 for an id that is not there', async () => {
+    for (const id of ['..%2F..%2Fetc%2Fpasswd', '%2e%2e%2f%2e%2e%2fetc%2fpasswd', '..%5C..%5Cwindows%5Cwin.ini', 'x%00.png', `${world.machines.tractor}%2F..`]) {
+      const res = await t.http().get(`/api/uploads/${id}`).set(auth('owner'));
+      expect(res.status, id).toBe(400);
+      expect(res.body.issues).toEqual([{ path: 'id', message: 'Must be a valid id.' }]);
+    }
+    expect((await t.http().get('/api/uploads/00000000-0000-4000-8000-000000000000').set(auth('owner'))).status).toBe(404);
+  });
+
+  it('refuses an SVG or a script named as an image, and a file name with a NUL trick', async () => {
+    const svg = Buffer.from('<svg xmlns="http://www.w3.org/2000/svg" onload="alert(1)"/>');
+    const js = Buffer.from('fetch("/api/auth/me").then(r => r.text()).then(alert)');
+    for (const [data, name] of [[svg, 'receipt.png'], [svg, 'receipt.svg'], [js, 'receipt.jpg'], [js, 'a.php%00.jpg']] as const) {
+      const res = await t.http().post('/api/uploads').set(auth('owner')).field('purpose', 'receipt').attach('file', data, { filename: name, contentType: 'image/png' });
+      expect(res.status, name).toBe(400);
+      expect(res.body.issues[0].path).toBe('file');
+    }
+    expect(await t.dbh.db.select().from(uploads).where(eq(uploads.operationId, fx.operationId))).toEqual([]);
+  });
+
+  it('refuses operation ids, roles and states smuggled into bodies, and leaves the rows as they were', async () => {
+    const other = await createOperation(t.dbh.db, 'Other outfit');
+    const smuggled = [
+      ['PATCH', `/api/parties/${fx.customers[0]}`, { operationId: other.operationId }],
+      ['PATCH', `/api/machines/${world.machines.tractor}`, { operationId: other.operationId }],
+      ['PATCH', `/api/machines/${world.machines.tractor}`, { id: other.operationId }],
+      ['POST', '/api/parties', { kind: 'customer', name: 'Smuggled', relationship: 'neighbour', operationId: other.operationId }],
+      ['PATCH', `/api/invoices/${world.fx.customers[0]}`, { status: 'paid' }],
+      ['POST', '/api/users/invitations', { email: 'smuggled@example.test', name: 'Smuggled', role: 'operator', userId: fx.members.owner.userId }],
+    ] as const;
+    for (const [method, path, body] of smuggled) {
+      const res = await t.http()[method === 'POST' ? 'post' : 'patch'](path).set(auth('owner')).send(body);
+      expect(res.status, `${method} ${path}`).toBe(400);
+      expect(JSON.stringify(res.body.issues), `${method} ${path}`).toMatch(/Unknown field/);
+    }
+    const [machine] = await t.dbh.db.select().from(machines).where(eq(machines.id, world.machines.tractor));
+    expect(machine!.operationId).toBe(fx.operationId);
+    // A partner may not promote itself, and the owner may not leave the operation without an owner.
+    expect((await t.http().patch(`/api/users/${fx.members.partner.membershipId}`).set(auth('partner')).send({ role: 'owner' })).status).toBe(403);
+    expect((await t.http().patch(`/api/users/${fx.members.owner.membershipId}`).set(auth('owner')).send({ role: 'bookkeeper' })).status).toBe(409);
+    const [partner] = await t.dbh.db.select().from(memberships).where(eq(memberships.id, fx.members.partner.membershipId));
+    expect(partner!.role).toBe('partner');
+  });
+
+  it('refuses absurd page sizes, unknown sort columns and repeated parameters with 400', async () => {
+    for (const query of ['pageSize=100000', 'pageSize=0', 'pageSize=-1', 'page=0', 'page=1e9', 'sort=password_hash', 'sort=name;drop table parties', 'pageSize=1&pageSize=2', 'sort=name&sort=kind', 'operationId=x']) {
+      for (const path of ['/api/parties', '/api/work-entries', '/api/invoices', '/api/machines']) {
+        const res = await t.http().get(`${path}?${query}`).set(auth('owner'));
+        expect(res.status, `${path}?${query}`).toBe(400);
+      }
+    }
+  });
+
+  it('treats SQL and LIKE wildcards in a search as plain text', async () => {
+    for (const q of ["' OR 1=1 --", '%', '_', '\\', "Neighbour%' --"]) {
+      const res = await t.http().get('/api/parties').query({ q }).set(auth('owner'));
+      expect(res.status, q).toBe(200);
+      expect(res.body.items, q).toEqual([]);
+    }
+  });
+
+  it('takes an access token from the Authorization header only, never from the query string or a cookie', async () => {
+    const token = tok.owner!;
+    for (const query of ['access_token', 'token', 'jwt', 'authorization']) {
+      expect((await t.http().get(`/api/auth/me?${query}=${token}`)).status, query).toBe(401);
+    }
+    expect((await t.http().get('/api/auth/me').set('Cookie', `access_token=${token}; hb_access=${token}`)).status).toBe(401);
+    expect((await t.http().get('/api/auth/me').set('Authorization', `Bearer ${token}`)).status).toBe(200);
   });
 });
