@@ -18,8 +18,8 @@ export function restoreSessionOnce(): Promise<void> {
     () => noteServerSuccess(),
     (error: unknown) => {
       noteServerError(error);
-      // No signal: the person last signed in here keeps the cab form and their queue.
-      const phoneUser = isApiError(error) && error.status === 0 ? readPhoneUser() : null;
+      // No signal, or no server behind it: the person last signed in here keeps the cab form and their queue.
+      const phoneUser = isApiError(error) && [0, 502, 503, 504].includes(error.status) ? readPhoneUser() : null;
       if (phoneUser) sessionStore.set(offlineSession(phoneUser));
     },
   );
