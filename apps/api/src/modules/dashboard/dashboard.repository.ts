@@ -16,6 +16,8 @@ export type UnbilledByCustomer = {
   unpriced: number;
 };
 
+export type RefundDue = { invoiceId: string; series: string; number: number | null; left: string };
+
 @Injectable()
 export class DashboardRepository {
   constructor(@Inject(DB) private readonly dbh: DbHandle) {}
@@ -77,5 +79,15 @@ export class DashboardRepository {
         ${operatorUserId === null ? sql`and state <> 'draft'` : sql`and operator_user_id = ${operatorUserId}`}
       group by 1`);
     return new Map(result.rows.map((row) => [row.week, row.hours]));
+  }
+
+  /** Card money that reached a void or already paid invoice and has not all gone back yet. */
+  async refundsDue(operationId: string): Promise<RefundDue[]> {
+    const result = await this.dbh.db.execute<Row<RefundDue>>(sql`
+      select i.id as "invoiceId", i.series, i.number, (p.amount - p.amount_refunded)::numeric(14,2)::text as "left"
+      from payments p join invoices i on i.operation_id = p.operation_id and i.id = p.invoice_id
+      where p.operation_id = ${operationId} and p.refund_due is not null and p.amount > p.amount_refunded
+      order by p.received_on, p.created_at`);
+    return result.rows;
   }
 }

@@ -9,6 +9,7 @@ import type { InvoiceState } from '@hitchbook/shared/schemas/invoices';
 import type { Actor } from '../../common/auth/actor.js';
 import { DB, type DbHandle } from '../../core/database.js';
 import { invoiceScopeOf, wholeOperation, type InvoiceScope } from '../customer-portal/invoice-scope.js';
+import { numberLabel } from '../invoices/invoice-numbers.js';
 import { InvoicesRepository } from '../invoices/invoices.repository.js';
 import { PartiesRepository } from '../parties/parties.repository.js';
 import { SquareUpsService } from '../square-ups/square-ups.service.js';
@@ -81,6 +82,10 @@ export class DashboardService {
         hint: 'At sheet rates before minimums, travel and fuel adjustment',
       });
       cards.push(await this.overdueCard(wholeOperation(actor.operationId)));
+      if (actor.role === 'owner') {
+        const refunds = await this.refundsDueCard(actor.operationId);
+        if (refunds) cards.push(refunds);
+      }
       cards.push(await this.squareUpCard(actor.operationId, isoDay(now)));
     }
     if (actor.role !== 'bookkeeper') {
@@ -107,6 +112,20 @@ export class DashboardService {
       return { label: monday, value: fixed(new Dec(hours.get(monday) ?? 0), 2) };
     });
     return { key: 'hours-per-week', label: own ? 'My hours per week' : 'Machine hours per week', kind: 'bar', unit: 'hours', points, hint: `The last ${CHART_WEEKS} weeks, by the Monday each starts` };
+  }
+
+  /** Shown only while there is money to hand back: only the owner can refund it. */
+  private async refundsDueCard(operationId: string): Promise<DashboardCardDto | null> {
+    const due = await this.repo.refundsDue(operationId);
+    if (due.length === 0) return null;
+    const owed = due.reduce((sum, row) => sum.plus(row.left), new Dec(0));
+    const labels = [...new Set(due.map((row) => numberLabel(row.series, row.number)))];
+    return {
+      key: 'refunds-due',
+      label: 'Card refunds due',
+      value: String(due.length),
+      hint: `${formatMoney(owed)} paid by card to hand back, on ${labels.slice(0, 3).join(', ')}${labels.length > 3 ? '…' : ''}`,
+    };
   }
 
   private async overdueCard(scope: InvoiceScope): Promise<DashboardCardDto> {

@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { invoices, meterReadings } from '@hitchbook/db';
+import { invoices, meterReadings, payments } from '@hitchbook/db';
 import { createOperation, signInAll, type OperationFixture } from '../../test-support/fixtures.js';
 import { createTestApp, type TestApp } from '../../test-support/test-app.js';
 import { Ledger } from '../square-ups/ledger.fixture.js';
@@ -47,6 +47,10 @@ beforeAll(async () => {
   await t.dbh.db.insert(meterReadings).values({ operationId: fx.operationId, machineId: loader, readAt: new Date(Date.now() - 86_400_000), hours: '812.0' });
   const invoiceId = await ledger.invoice({ partyId: neighbour, number: 7, issueDate: daysAgo(45), lines: [{ workTypeName: 'Mowing', amount: '200.00' }] });
   await t.dbh.db.update(invoices).set({ total: '200.00', subtotal: '200.00', amountPaid: '50.00', dueDate: daysAgo(15) }).where(eq(invoices.id, invoiceId));
+  // Refund due: 80.00 paid by card on invoice 8 after it was voided.
+  const voided = await ledger.invoice({ partyId: neighbour, number: 8, issueDate: daysAgo(20), lines: [{ workTypeName: 'Mowing', amount: '80.00' }] });
+  await t.dbh.db.update(invoices).set({ total: '80.00', subtotal: '80.00', amountPaid: '80.00', status: 'void', voidReason: 'Billed twice' }).where(eq(invoices.id, voided));
+  await t.dbh.db.insert(payments).values({ operationId: fx.operationId, invoiceId: voided, method: 'card', amount: '80.00', receivedOn: daysAgo(3), stripePaymentIntentId: `pi_test_dashboard_${fx.operationId}`, refundDue: 'Paid by card after the invoice was voided; refund it to the payer.' });
   await ledger.cost(tractor, 'insurance', daysAgo(2), '100.00', a);
   const created = await t.http().post('/api/square-ups').set(bearer(tokens.owner)).send({ name: 'This season', periodFrom: daysAgo(60), periodTo: daysAgo(-60) });
   expect(created.status).toBe(201);
@@ -68,6 +72,7 @@ describe('dashboard', () => {
     expect(card(cards, 'unbilled-work')).toMatchObject({ value: '$150.00', hint: expect.stringContaining('2 approved entries for 2 customers') });
     expect(card(cards, 'unbilled-work')?.hint).toContain('1 without a rate');
     expect(card(cards, 'overdue-invoices')).toMatchObject({ value: '1', hint: '$150.00 past due' });
+    expect(card(cards, 'refunds-due')).toMatchObject({ value: '1', hint: '$80.00 paid by card to hand back, on INV-0008' });
     expect(card(cards, 'square-up-balance')).toMatchObject({ label: 'Open square-up: This season', value: '$50.00' });
     expect(card(cards, 'meter-readings-due')).toMatchObject({ value: '1', hint: expect.stringContaining('Dash tractor') });
     const unbilled = charts.find((c) => c.key === 'unbilled-by-customer');
@@ -83,6 +88,9 @@ describe('dashboard', () => {
     const { cards } = await dashboardOf('bookkeeper');
     expect(cards.map((c) => c.key)).toEqual(expect.arrayContaining(['unbilled-work', 'overdue-invoices', 'square-up-balance']));
     expect(card(cards, 'entries-waiting')).toBeUndefined();
+    // Only the owner refunds, so only the owner is asked to.
+    expect(card(cards, 'refunds-due')).toBeUndefined();
+    expect(card((await dashboardOf('partner')).cards, 'refunds-due')).toBeUndefined();
   });
 
   it('shows an operator their own entries and hours and never a money figure', async () => {

@@ -15,6 +15,7 @@ const TARGETS: Record<string, CardTarget> = {
   'my-submitted': { area: 'work', href: paths.work.entries({ state: 'submitted' }), label: 'See my entries' },
   'unbilled-work': { area: 'invoices', href: paths.invoices(), label: 'Go to invoices' },
   'overdue-invoices': { area: 'invoices', href: paths.invoices({ state: 'overdue' }), label: 'See the overdue invoices' },
+  'refunds-due': { area: 'invoices', href: paths.invoices(), label: 'Go to invoices' },
   'open-invoices': { area: 'myInvoices', href: paths.myInvoices(), label: 'See my invoices' },
   'open-balance': { area: 'myInvoices', href: paths.myInvoices(), label: 'Pay an invoice' },
   'square-up-balance': { area: 'squareUps', href: paths.squareUps(), label: 'Open the square-up' },
