@@ -103,6 +103,8 @@ export const invoiceLines = pgTable(
     foreignKey({ name: 'invoice_lines_invoice_fk', columns: [t.operationId, t.invoiceId], foreignColumns: [invoices.operationId, invoices.id] }).onDelete('cascade'),
     unique('invoice_lines_invoice_position_key').on(t.invoiceId, t.position),
     index('invoice_lines_work_entry_idx').on(t.workEntryId),
+    // A year's billed work, read by date for the machine figures of that year.
+    index('invoice_lines_operation_work_date_idx').on(t.operationId, t.workDate).where(sql`${t.kind} = 'work'`),
   ],
 );
 

@@ -1,0 +1,1 @@
+CREATE INDEX "invoice_lines_operation_work_date_idx" ON "invoice_lines" USING btree ("operation_id","work_date") WHERE "invoice_lines"."kind" = 'work';
