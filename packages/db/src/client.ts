@@ -16,13 +16,24 @@ export interface DbHandle {
 // numeric and bigint columns stay strings: money and quantities go to decimal.js, never to a JS number.
 pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => v);
 
-export function createDb(connectionString: string, options: { max?: number; applicationName?: string } = {}): DbHandle {
+export interface DbOptions {
+  max?: number;
+  applicationName?: string;
+  /**
+   * The server ends a session that sits this long inside a transaction without sending anything, so a
+   * stuck request cannot hold row locks (an invoice counter, say) for ever.
+   */
+  idleInTransactionTimeoutMs?: number;
+}
+
+export function createDb(connectionString: string, options: DbOptions = {}): DbHandle {
   const pool = new pg.Pool({
     connectionString,
     max: options.max ?? 10,
     connectionTimeoutMillis: 3000,
     idleTimeoutMillis: 30000,
     application_name: options.applicationName ?? 'hitchbook',
+    ...(options.idleInTransactionTimeoutMs ? { idle_in_transaction_session_timeout: options.idleInTransactionTimeoutMs } : {}),
   });
   // A dropped idle connection (database restart) must not crash the process; the pool reconnects on next use.
   pool.on('error', () => undefined);

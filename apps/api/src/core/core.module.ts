@@ -17,7 +17,7 @@ export class CoreModule {
       imports: [JwtModule.register({ secret: config.jwtSecret, signOptions: { algorithm: 'HS256' }, verifyOptions: { algorithms: ['HS256'] } })],
       providers: [
         { provide: APP_CONFIG, useValue: config },
-        { provide: DB, useFactory: (): DbHandle => createDb(config.databaseUrl, { max: 10, applicationName: 'hitchbook-api' }) },
+        { provide: DB, useFactory: (): DbHandle => createDb(config.databaseUrl, { max: 10, applicationName: 'hitchbook-api', idleInTransactionTimeoutMs: 60_000 }) },
         AuditService,
         MailService,
         RateLimitService,
