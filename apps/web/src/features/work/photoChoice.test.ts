@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { MAX_ENTRY_PHOTOS } from '@hitchbook/shared/schemas/work-entries';
 import { choosePhotos } from './photoChoice';
+import { fittedSize } from './photoScale';
 
 const file = (name: string, type: string, size = 1000) => new File([new Uint8Array(size)], name, { type });
 
@@ -23,5 +24,19 @@ describe('choosePhotos', () => {
     const { accepted, refused } = choosePhotos([file('a.jpg', 'image/jpeg'), file('b.jpg', 'image/jpeg'), file('c.jpg', 'image/jpeg')], MAX_ENTRY_PHOTOS - 2);
     expect(accepted.map((f) => f.name)).toEqual(['a.jpg', 'b.jpg']);
     expect(refused).toEqual([`c.jpg: an entry holds at most ${MAX_ENTRY_PHOTOS} photos.`]);
+  });
+
+  it('holds to tighter limits when given, as for photos that may wait on the phone', () => {
+    const { accepted, refused } = choosePhotos([file('a.jpg', 'image/jpeg', 3 * 1024 * 1024), file('b.jpg', 'image/jpeg'), file('c.jpg', 'image/jpeg')], 0, { perEntry: 1, bytesPerPhoto: 2 * 1024 * 1024 });
+    expect(accepted.map((f) => f.name)).toEqual(['b.jpg']);
+    expect(refused).toEqual(['a.jpg: a photo may be at most 2 MB.', 'c.jpg: an entry holds at most 1 photo.']);
+  });
+});
+
+describe('fittedSize', () => {
+  it('shrinks the longest side to 1600 px keeping the shape, and never enlarges', () => {
+    expect(fittedSize(4032, 3024)).toEqual({ width: 1600, height: 1200 });
+    expect(fittedSize(3024, 4032)).toEqual({ width: 1200, height: 1600 });
+    expect(fittedSize(800, 600)).toEqual({ width: 800, height: 600 });
   });
 });

@@ -10,15 +10,25 @@ export interface PhotoChoice {
   refused: string[];
 }
 
-/** Sorts picked files into those worth sending and those the server would refuse anyway. */
-export function choosePhotos(picked: readonly File[], alreadyHeld: number): PhotoChoice {
+export interface PhotoLimits {
+  perEntry: number;
+  bytesPerPhoto: number;
+}
+
+/** What the server keeps with one entry. */
+export const SERVER_PHOTO_LIMITS: PhotoLimits = { perEntry: MAX_ENTRY_PHOTOS, bytesPerPhoto: MAX_UPLOAD_BYTES };
+
+const mb = (bytes: number) => `${Number((bytes / (1024 * 1024)).toFixed(1))} MB`;
+
+/** Sorts picked files into those worth sending and those that would be refused anyway. */
+export function choosePhotos(picked: readonly File[], alreadyHeld: number, limits: PhotoLimits = SERVER_PHOTO_LIMITS): PhotoChoice {
   const accepted: File[] = [];
   const refused: string[] = [];
   for (const file of picked) {
     if (!PHOTO_TYPES.has(file.type)) refused.push(`${file.name}: only JPEG or PNG photos can be attached.`);
-    else if (file.size > MAX_UPLOAD_BYTES) refused.push(`${file.name}: a photo may be at most ${MAX_UPLOAD_BYTES / (1024 * 1024)} MB.`);
+    else if (file.size > limits.bytesPerPhoto) refused.push(`${file.name}: a photo may be at most ${mb(limits.bytesPerPhoto)}.`);
     else if (file.size === 0) refused.push(`${file.name}: the file is empty.`);
-    else if (alreadyHeld + accepted.length >= MAX_ENTRY_PHOTOS) refused.push(`${file.name}: an entry holds at most ${MAX_ENTRY_PHOTOS} photos.`);
+    else if (alreadyHeld + accepted.length >= limits.perEntry) refused.push(`${file.name}: an entry holds at most ${limits.perEntry} photo${limits.perEntry === 1 ? '' : 's'}.`);
     else accepted.push(file);
   }
   return { accepted, refused };

@@ -1,15 +1,17 @@
 import { useRef, useState } from 'react';
-import { Stack } from '@mantine/core';
+import { Paper, Stack, Title } from '@mantine/core';
 import { workEntryCreateSchema } from '@hitchbook/shared/schemas/work-entries';
 import { FormErrorAlert } from '../../../components/FormErrorAlert';
 import { useServerForm } from '../../../lib/form';
 import { localDateIso } from '../../../lib/localTime';
+import { PHOTO_BUDGET } from '../../offline/photoBudget';
 import { useSaveOrQueueWorkEntry, type SaveOutcome } from '../../offline/phoneQueue';
 import { newClientId } from '../clientId';
 import { blankEntry, entryIssuePath, newEntryPayload } from '../entryForm';
 import { browserStore, readLastUsed, rememberLastUsed } from '../lastUsed';
 import { EntryActions, type EntryIntent } from './EntryActions';
 import { EntryFields, type EntryOptions } from './EntryFields';
+import { PhotoPicker } from './PhotoPicker';
 
 interface NewEntryFormProps {
   userId: string;
@@ -27,7 +29,11 @@ export function NewEntryForm({ userId, operatorName, options, onSaved }: NewEntr
   const [lastUsed] = useState(() => readLastUsed(browserStore(), userId));
   const intent = useRef<EntryIntent>('submitted');
   const [shownIntent, setShownIntent] = useState<EntryIntent>('submitted');
-  const save = useSaveOrQueueWorkEntry(userId);
+  const [photos, setPhotos] = useState<File[]>([]);
+  // Read when the form is sent: the photos go with the entry, after it, through the phone's queue.
+  const picked = useRef(photos);
+  picked.current = photos;
+  const save = useSaveOrQueueWorkEntry(userId, () => picked.current);
   const { form, onSubmit, formError, submitting } = useServerForm({
     schema: workEntryCreateSchema,
     initialValues: blankEntry(localDateIso(), userId, lastUsed),
@@ -44,6 +50,14 @@ export function NewEntryForm({ userId, operatorName, options, onSaved }: NewEntr
     <form onSubmit={onSubmit} noValidate>
       <Stack gap="md">
         <EntryFields form={form} options={options} operatorName={operatorName} lastUsed={lastUsed} editing={false} />
+        <Paper withBorder radius="md" p="md">
+          <Stack gap="md">
+            <Title order={2} size="h4">
+              Photos
+            </Title>
+            <PhotoPicker files={photos} onChange={setPhotos} disabled={submitting} limits={PHOTO_BUDGET} />
+          </Stack>
+        </Paper>
         <FormErrorAlert message={formError} />
         <EntryActions
           submitting={submitting}

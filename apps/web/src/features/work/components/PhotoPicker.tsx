@@ -1,7 +1,8 @@
 import { useRef, useState } from 'react';
 import { Alert, Button, Group, Stack, Text } from '@mantine/core';
 import { IconCamera } from '@tabler/icons-react';
-import { choosePhotos } from '../photoChoice';
+import { choosePhotos, type PhotoLimits } from '../photoChoice';
+import { downscalePhoto } from '../photoScale';
 import { PhotoThumb } from './PhotoThumb';
 
 interface PhotoPickerProps {
@@ -10,15 +11,18 @@ interface PhotoPickerProps {
   /** Photos the entry holds already, so the limit counts them. */
   held?: number;
   disabled?: boolean;
+  /** Tighter than the server's when the photos may have to wait on the phone. */
+  limits?: PhotoLimits;
 }
 
 /**
  * Photos chosen on the device: on a phone the button opens the camera (a file picker elsewhere).
  * They stay here until the entry is saved, then go up one by one.
  */
-export function PhotoPicker({ files, onChange, held = 0, disabled }: PhotoPickerProps) {
+export function PhotoPicker({ files, onChange, held = 0, disabled, limits }: PhotoPickerProps) {
   const input = useRef<HTMLInputElement>(null);
   const [refused, setRefused] = useState<string[]>([]);
+  const [preparing, setPreparing] = useState(false);
 
   return (
     <Stack gap="sm">
@@ -38,14 +42,20 @@ export function PhotoPicker({ files, onChange, held = 0, disabled }: PhotoPicker
         hidden
         data-testid="entry-photo-input"
         onChange={(event) => {
-          const choice = choosePhotos(Array.from(event.currentTarget.files ?? []), held + files.length);
-          setRefused(choice.refused);
-          if (choice.accepted.length > 0) onChange([...files, ...choice.accepted]);
+          const picked = Array.from(event.currentTarget.files ?? []);
           // The same photo can be picked again after it was removed.
           event.currentTarget.value = '';
+          setPreparing(true);
+          void Promise.all(picked.map(downscalePhoto))
+            .then((scaled) => {
+              const choice = choosePhotos(scaled, held + files.length, limits);
+              setRefused(choice.refused);
+              if (choice.accepted.length > 0) onChange([...files, ...choice.accepted]);
+            })
+            .finally(() => setPreparing(false));
         }}
       />
-      <Button size="lg" variant="default" leftSection={<IconCamera />} onClick={() => input.current?.click()} disabled={disabled}>
+      <Button size="lg" variant="default" leftSection={<IconCamera />} onClick={() => input.current?.click()} disabled={disabled} loading={preparing}>
         {files.length > 0 ? 'Add another photo' : 'Take or add a photo'}
       </Button>
       {refused.length > 0 && (
