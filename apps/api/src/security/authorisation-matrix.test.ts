@@ -89,7 +89,7 @@ describe('authorisation matrix', () => {
       }
     }
     expect(wrong).toEqual([]);
-  });
+  }, 180_000);
 
   it('lets an allowed caller reach every non-public route: never 401 or 403', () => {
     for (const [k, row] of Object.entries(ROWS)) {
@@ -127,6 +127,8 @@ describe('authorisation matrix', () => {
         const header = (res.text.split(/\r?\n/)[0] ?? '').split(',');
         expect(header.length, key(route)).toBeGreaterThan(1);
         found.push(...header.filter((h) => MONEY_KEY.test(h)).map((h) => `${key(route)} column ${h}`));
+      } else if (res.type.startsWith('image/')) {
+        // A photo someone took of the work: the file as it was uploaded, no figures from the books.
       } else throw new Error(`${key(route)} answers ${res.type}; say here how to look for money in it`);
     }
     expect(found).toEqual([]);

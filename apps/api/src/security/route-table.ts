@@ -95,6 +95,15 @@ export const ROWS: Record<string, Row> = {
   'POST /api/work-entries/:id/submit': { allow: LOGGERS, path: (w) => `/api/work-entries/${w.ids.entry}/submit`, ok: 400 },
   'POST /api/work-entries/:id/approve': { allow: OWNER_PARTNER, path: (w) => `/api/work-entries/${w.ids.entry}/approve`, ok: 400 },
   'POST /api/work-entries/:id/reopen': { allow: OWNER_PARTNER, path: (w) => `/api/work-entries/${w.ids.entry}/reopen`, ok: 400 },
+  'GET /api/work-entries/:id/photos': { allow: STAFF_READERS, path: (w) => `/api/work-entries/${w.ids.entry}/photos`, ok: 200 },
+  'GET /api/work-entries/:id/photos/:uploadId': { allow: STAFF_READERS, path: (w) => `/api/work-entries/${w.ids.entry}/photos/${w.ids.photo}`, ok: 200 },
+  // Multipart without a file: refused at validation.
+  'POST /api/work-entries/:id/photos': { allow: LOGGERS, path: (w) => `/api/work-entries/${w.ids.entry}/photos`, ok: 400 },
+  'DELETE /api/work-entries/:id/photos/:uploadId': {
+    allow: LOGGERS,
+    path: async (w, c) => `/api/work-entries/${w.ids.entry}/photos/${LOGGERS.includes(c as Staff) ? await throwaway.photo(w) : w.ids.photo}`,
+    ok: 204,
+  },
   'DELETE /api/work-entries/:id': { allow: LOGGERS, path: async (w, c) => `/api/work-entries/${LOGGERS.includes(c as Staff) ? await throwaway.entry(w) : w.ids.entry}`, ok: 204 },
 
   'GET /api/rate-sheets': { allow: MONEY_READERS, path: () => '/api/rate-sheets', ok: 200 },
@@ -116,6 +125,7 @@ export const ROWS: Record<string, Row> = {
   'POST /api/invoices/:id/credit-notes': { allow: OWNER, path: (w) => `/api/invoices/${w.ids.invoice}/credit-notes`, ok: 400 },
   'POST /api/invoices/:id/send': { allow: OWNER, path: (w) => `/api/invoices/${w.ids.invoice}/send`, ok: 400 },
   'POST /api/invoices/:id/payments': { allow: OWNER, path: (w) => `/api/invoices/${w.ids.invoice}/payments`, ok: 400 },
+  'POST /api/invoices/:id/payments/:paymentId/refund': { allow: OWNER, path: (w) => `/api/invoices/${w.ids.otherInvoice}/payments/${w.ids.payment}/refund`, ok: 400 },
   'POST /api/invoices/:id/checkout': { allow: ['owner', 'customer'], path: (w) => `/api/invoices/${w.ids.invoice}/checkout`, ok: 400 },
 
   'GET /api/square-ups': { allow: MONEY_READERS, path: () => '/api/square-ups', ok: 200 },

@@ -5,6 +5,9 @@ import { addEntry, addNeighbourSheet, createBillingWorld, type BillingWorld } fr
 import { createOperation, signInAll, type OperationFixture } from '../test-support/fixtures.js';
 import type { TestApp } from '../test-support/test-app.js';
 
+/** A 1×1 PNG, the smallest picture the upload checks accept. */
+const PNG = Buffer.from('89504e470d0a1a0a0000000d4948445200000001000000010802000000907753de0000000c4944415408d763f8ffff3f0005fe02fea7d6a4c90000000049454e44ae426082', 'hex');
+
 export type Caller = 'owner' | 'partner' | 'operator' | 'bookkeeper' | 'customer' | 'anonymous';
 export const CALLERS: readonly Caller[] = ['owner', 'partner', 'operator', 'bookkeeper', 'customer', 'anonymous'];
 
@@ -35,6 +38,10 @@ export interface SecurityWorld {
     transfer: string;
     upload: string;
     membership: string;
+    /** A photo on `entry`. */
+    photo: string;
+    /** A cheque recorded against `otherInvoice`. */
+    payment: string;
   };
 }
 
@@ -87,6 +94,9 @@ export async function createSecurityWorld(t: TestApp, label = 'Security'): Promi
 
   const upload = (await ok(t.http().post('/api/uploads').set(owner).field('purpose', 'receipt').attach('file', PDF, { filename: 'receipt.pdf', contentType: 'application/pdf' }), 'upload')).body.id as string;
 
+  const photo = (await ok(t.http().post(`/api/work-entries/${entry}/photos`).set(owner).attach('file', PNG, { filename: 'gateway.png', contentType: 'image/png' }), 'photo')).body.uploadId as string;
+  const payment = (await ok(t.http().post(`/api/invoices/${otherInvoice}/payments`).set(owner).send({ method: 'cheque', amount: '10.00', receivedOn: '2025-06-01', reference: 'Cheque 77' }), 'payment')).body.payment.id as string;
+
   const squareUp = (await ok(t.http().post('/api/square-ups').set(owner).send({ name: 'Spring 2025', periodFrom: '2025-01-01', periodTo: '2025-04-30' }), 'square-up')).body.id as string;
   const closed = await ok(t.http().post(`/api/square-ups/${squareUp}/close`).set(owner).send({}), 'close');
   const transfer = (closed.body as { transfers: Array<{ id: string }> }).transfers[0]?.id;
@@ -113,6 +123,8 @@ export async function createSecurityWorld(t: TestApp, label = 'Security'): Promi
       transfer,
       upload,
       membership: fx.members.partner.membershipId,
+      photo,
+      payment,
     },
   };
 }
@@ -157,6 +169,10 @@ export const throwaway = {
     await addEntry(w.t.dbh.db, w.billing, { workDate: date, workTypeId: w.ids.workType, fieldId: w.ids.field, billToPartyId: w.fx.customers[1], hours: '1.00', acres: '2.000' });
     const d = await ok(w.t.http().post('/api/invoices/drafts').set(bearer(w.tokens.owner)).send({ partyId: w.fx.customers[1], from: date, to: date }), 'draft');
     return d.body.id as string;
+  },
+  async photo(w: SecurityWorld): Promise<string> {
+    const res = await ok(w.t.http().post(`/api/work-entries/${w.ids.entry}/photos`).set(bearer(w.tokens.owner)).attach('file', PNG, { filename: 'spare.png', contentType: 'image/png' }), 'photo');
+    return res.body.uploadId as string;
   },
   async openSquareUp(w: SecurityWorld, year: number): Promise<string> {
     const res = await ok(w.t.http().post('/api/square-ups').set(bearer(w.tokens.owner)).send({ name: `Season ${year}`, periodFrom: `${year}-01-01`, periodTo: `${year}-12-31` }), 'square-up');

@@ -55,6 +55,7 @@ const VALID_BODIES: Record<string, (a: SecurityWorld) => object> = {
   'POST /api/invoices/:id/send': () => ({}),
   'POST /api/invoices/:id/payments': () => ({ method: 'cash', amount: '1.00', receivedOn: '2025-06-01' }),
   'POST /api/invoices/:id/checkout': () => ({}),
+  'POST /api/invoices/:id/payments/:paymentId/refund': () => ({ amount: '1.00' }),
   'POST /api/square-ups/:id/transfers/:transferId/paid': () => ({ paidOn: '2025-06-01', method: 'cash' }),
 };
 
@@ -91,7 +92,7 @@ function callerFor(route: RouteInfo) {
 }
 
 describe('tenant isolation', () => {
-  it("answers 404 to every route given another operation's ids in its path, and changes nothing there", async () => {
+  it("answers 404 to every route given another operation's ids in its path, and changes nothing there", { timeout: 120_000 }, async () => {
     const withIds = listRoutes(t.app).filter((r) => r.path.includes('/:') && !r.isPublic);
     expect(withIds.length).toBeGreaterThan(30);
     // B's throwaway rows are made first, so the fingerprint already holds them.
