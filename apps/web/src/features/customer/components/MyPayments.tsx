@@ -1,4 +1,5 @@
 import { Group, Paper, Stack, Text, Title } from '@mantine/core';
+import { Decimal } from 'decimal.js';
 import { formatMoney } from '@hitchbook/shared/money';
 import { useMyPayments } from '../api/listMyPayments';
 import { formatDay, METHOD_LABELS } from '../labels';
@@ -13,12 +14,20 @@ export function MyPayments({ invoiceId }: { invoiceId: string }) {
       </Title>
       <Stack gap={6}>
         {payments.data.map((p) => (
-          <Group key={p.id} justify="space-between">
+          <Group key={p.id} justify="space-between" align="flex-start" wrap="nowrap">
             <Text>
               {formatDay(p.receivedOn)} · {METHOD_LABELS[p.method]}
               {p.status === 'refunded' ? ' (refunded)' : ''}
             </Text>
-            <Text fw={700}>{formatMoney(p.amount)}</Text>
+            <Stack gap={0} align="flex-end">
+              <Text fw={700}>{formatMoney(p.amount)}</Text>
+              {/* Part of a card payment handed back: the payer sees it went to their card. */}
+              {new Decimal(p.amountRefunded).gt(0) && p.status !== 'refunded' && (
+                <Text size="sm" c="dimmed" ta="right">
+                  {formatMoney(p.amountRefunded)} refunded to your card
+                </Text>
+              )}
+            </Stack>
           </Group>
         ))}
       </Stack>

@@ -45,6 +45,10 @@ function RefundForm({ invoiceId, payment, onDone }: { invoiceId: string; payment
         <Text>
           The money goes back to the card it came from. Not yet refunded: <b>{formatMoney(left)}</b>
         </Text>
+        <Text size="sm" c="dimmed">
+          The invoice then counts the refunded amount as unpaid again. When the customer should not owe it any more, also
+          correct the invoice with a credit note.
+        </Text>
         <DecimalInput label="Amount to refund" prefix="$" {...form.getInputProps('amount')} />
         <TextInput label="Reason" placeholder="Shown in the payment's history" {...form.getInputProps('reason')} />
         <FormButtons submitLabel="Refund to card" submitting={submitting} onCancel={onDone} />
