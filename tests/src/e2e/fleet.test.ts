@@ -99,7 +99,12 @@ describe('fields', () => {
       const name = `Quarry Lane ditches ${Date.now()}`;
       await signInAndWait(page, DEMO_SIGN_INS.owner);
       await page.goto(`${baseUrlOrThrow()}/fields`);
-      await page.getByRole('link', { name: 'Add road stretch' }).click();
+      // The add links appear once the signed-in role is known and the list has loaded; wait for both.
+      await page.locator('tbody tr').first().waitFor();
+      const addStretch = page.getByRole('link', { name: 'Add road stretch' });
+      await addStretch.waitFor({ state: 'visible' });
+      await addStretch.click();
+      await page.waitForURL(/\/fields\/new\?kind=roadside$/);
       await page.getByRole('heading', { name: 'Add a road stretch' }).waitFor();
       // Required fields carry their asterisk in the label.
       await page.getByLabel(/^Name/).fill(name);
@@ -111,8 +116,11 @@ describe('fields', () => {
       await expect.poll(() => page.getByTestId('strip-acres').textContent()).toBe('2.55 acres (length × width)');
       await screenshot(page, 'road-stretch-form-owner-desktop');
       await page.getByRole('button', { name: 'Add road stretch' }).click();
+      await page.waitForURL((url) => url.pathname === '/fields');
 
-      await page.getByLabel('Search by name or road').fill(name);
+      const search = page.getByLabel('Search by name or road');
+      await search.waitFor({ state: 'visible' });
+      await search.fill(name);
       const row = page.getByRole('row', { name: new RegExp(name) });
       await row.waitFor();
       expect(await row.textContent()).toContain('2.55');

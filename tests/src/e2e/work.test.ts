@@ -1,5 +1,6 @@
 import type { Browser, Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { fieldPhotoPng } from './photo.js';
 import { baseUrlOrThrow, DEMO_PASSWORD, DEMO_SIGN_INS, DESKTOP, inFreshPage, launchBrowser, PHONE, screenshot, signInAndWait } from './browser.js';
 
 let browser: Browser;
@@ -84,6 +85,15 @@ describe('logging work from the cab', () => {
       expect(await page.getByLabel('Acres').inputValue()).toMatch(/^\d+(\.\d+)?$/);
       await page.getByLabel('Fuel added').fill('6.5');
 
+      // A photo from the phone's camera: the input opens the camera on a phone.
+      const photoInput = page.getByTestId('entry-photo-input');
+      expect(await photoInput.getAttribute('accept')).toBe('image/*');
+      expect(await photoInput.getAttribute('capture')).toBe('environment');
+      await photoInput.setInputFiles({ name: 'ditch-north.png', mimeType: 'image/png', buffer: fieldPhotoPng() });
+      await page.getByTestId('photo-thumb').locator('img').waitFor();
+      await page.getByRole('button', { name: 'Remove ditch-north.png' }).waitFor();
+      await screenshot(page, 'cab-entry-photo-operator-phone');
+
       // Glove-sized: the pickers and the send button are at least 48 px tall.
       expect((await field.boundingBox())!.height).toBeGreaterThanOrEqual(48);
       const submit = page.getByRole('button', { name: 'Submit for approval' });
@@ -91,6 +101,7 @@ describe('logging work from the cab', () => {
       await screenshot(page, 'cab-entry-filled-operator-phone');
 
       const saved = page.waitForResponse((r) => r.url().endsWith('/api/work-entries') && r.request().method() === 'POST');
+      const photoSent = page.waitForResponse((r) => /\/api\/work-entries\/[^/]+\/photos$/.test(r.url()) && r.request().method() === 'POST');
       await submit.click();
       const response = await saved;
       expect(response.status()).toBe(201);
@@ -99,6 +110,10 @@ describe('logging work from the cab', () => {
       expect(body.hours).toBe('2.50');
       expect(body.clientId).toMatch(/^[0-9a-f-]{36}$/);
       entry = body;
+      // The photo follows its entry.
+      const photo = await photoSent;
+      expect(photo.status()).toBe(201);
+      expect(photo.url()).toContain(`/api/work-entries/${body.id}/photos`);
       await page.getByTestId('entry-saved').getByText('Submitted for approval').waitFor();
       await screenshot(page, 'cab-entry-saved-operator-phone');
 
@@ -117,6 +132,15 @@ describe('logging work from the cab', () => {
       await row.waitFor();
       expect(await row.getByTestId('entry-state').textContent()).toBe('Submitted');
       await screenshot(page, 'work-entries-before-approval-partner-desktop');
+
+      // The partner looks at the operator's photo before approving.
+      await row.getByRole('link', { name: /^Change the entry of / }).click();
+      const thumb = page.getByTestId('entry-photos').getByRole('img', { name: 'ditch-north.png' });
+      await thumb.waitFor();
+      await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBe(240);
+      await screenshot(page, 'work-entry-photo-partner-desktop');
+      await page.goBack();
+      await row.waitFor();
       await row.getByRole('button', { name: /^Approve the entry of / }).click();
       await expect.poll(() => row.getByTestId('entry-state').textContent()).toBe('Approved');
       // Approved entries are reopened, not approved again.
