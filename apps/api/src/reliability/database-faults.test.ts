@@ -69,12 +69,16 @@ async function issueHeldAtEntryUpdate(draftId: string, entryId: string) {
   await holder.query('select id from work_entries where id = $1 for update', [entryId]);
   holders.push(holder);
   const answer = issue(draftId);
-  // Blocked on the entry is past taking the number: the lock waits at the entry lock or the entry update.
+  // Awaited by the caller; a case that fails before that must not leave an unhandled rejection behind.
+  answer.catch(() => undefined);
+  // Waiting on the entry while holding the updated counter row: the number is taken, the issue not done.
   await waitFor('the issue to wait on the held entry', async () => {
     // Inside a transaction the activity view is read once and kept; a fresh look is asked for each time.
     await holder.query('select pg_stat_clear_snapshot()');
     const { rows } = await holder.query<{ pid: number }>(
-      `select pid from pg_stat_activity where application_name = 'hitchbook-api' and pg_blocking_pids(pid) @> array[pg_backend_pid()] and query ~* '(invoice_entries|work_entries)'`,
+      `select a.pid from pg_stat_activity a
+       where a.application_name = 'hitchbook-api' and pg_blocking_pids(a.pid) @> array[pg_backend_pid()] and a.query ~* '(invoice_entries|work_entries)'
+         and exists (select 1 from pg_locks l where l.pid = a.pid and l.relation = 'invoice_counters'::regclass and l.mode = 'RowExclusiveLock' and l.granted)`,
     );
     if (rows[0]) return rows[0];
     const seen = await holder.query(`select application_name, state, wait_event_type, pg_blocking_pids(pid) as blockers, pg_backend_pid() as me, left(query, 60) as query from pg_stat_activity where datname = current_database()`);
