@@ -1,4 +1,4 @@
-import { Body, Controller, Delete, Get, HttpCode, Inject, Param, Patch, Post, Query } from '@nestjs/common';
+import { Body, Controller, Delete, Get, HttpCode, Inject, Param, Patch, Post, Query, type StreamableFile } from '@nestjs/common';
 import {
   costEntryCreateSchema,
   costEntryListQuerySchema,
@@ -23,6 +23,13 @@ export class CostEntriesController {
   @Get()
   list(@CurrentActor() actor: Actor, @Param('id', new UuidPipe()) id: string, @Query(new ZodPipe(costEntryListQuerySchema)) query: CostEntryListQuery): Promise<CostEntryPage> {
     return this.costs.list(actor, id, query);
+  }
+
+  // Declared before ':costId' so the path is never read as an id.
+  @Roles('owner', 'partner', 'bookkeeper')
+  @Get('export.csv')
+  exportCsv(@CurrentActor() actor: Actor, @Param('id', new UuidPipe()) id: string, @Query(new ZodPipe(costEntryListQuerySchema)) query: CostEntryListQuery): Promise<StreamableFile> {
+    return this.costs.exportCsv(actor, id, query);
   }
 
   @Roles('owner', 'partner', 'bookkeeper')

@@ -1,4 +1,4 @@
-import { Inject, Injectable } from '@nestjs/common';
+import { Inject, Injectable, type StreamableFile } from '@nestjs/common';
 import type { Decimal } from 'decimal.js';
 import { pgErrorOf, type Executor } from '@hitchbook/db';
 import { toMoneyString } from '@hitchbook/shared/money';
@@ -11,6 +11,7 @@ import {
   type CostEntryUpdate,
 } from '@hitchbook/shared/schemas/machines';
 import type { Actor } from '../../common/auth/actor.js';
+import { csvDownload, type CsvColumn } from '../../common/csv/csv-writer.js';
 import { AppError, invalid, notFound } from '../../common/errors/app-error.js';
 import { AuditService } from '../../core/audit.service.js';
 import { DB, type DbHandle } from '../../core/database.js';
@@ -52,6 +53,23 @@ function columnsOf(input: CostEntryUpdate): Partial<CostEntryValues> {
   return values;
 }
 
+/** Decades of one machine's costs; a larger set is narrowed by dates first. */
+export const COST_EXPORT_MAX_ROWS = 20_000;
+const COST_EXPORT_PAGE = 200;
+
+/** Free text (vendor, payer, notes) is neutralised by the writer; amounts go out as plain decimals. */
+const COST_COLUMNS: CsvColumn<CostEntryRow>[] = [
+  { header: 'date', value: (c) => c.incurredOn },
+  { header: 'category', value: (c) => c.category },
+  { header: 'amount', kind: 'number', value: (c) => c.amount },
+  { header: 'gallons', kind: 'number', value: (c) => c.gallons },
+  { header: 'meter hours', kind: 'number', value: (c) => c.meterHours },
+  { header: 'vendor', value: (c) => c.vendor },
+  { header: 'paid by', value: (c) => c.paidByName },
+  { header: 'receipt', value: (c) => (c.receiptUploadId ? 'yes' : '') },
+  { header: 'notes', value: (c) => c.notes },
+];
+
 @Injectable()
 export class CostEntriesService {
   constructor(
@@ -68,6 +86,24 @@ export class CostEntriesService {
     await this.access.machineOrThrow(actor, 'money.read', machineId);
     const { rows, total, amount, gallons } = await this.costs.list(actor.operationId, machineId, query);
     return { items: rows.map(toDto), total, page: query.page, pageSize: query.pageSize, totals: { amount: toMoneyString(amount), gallons } };
+  }
+
+  /** The filtered costs table, every page of it in the table's order, as CSV. */
+  async exportCsv(actor: Actor, machineId: string, query: CostEntryListQuery): Promise<StreamableFile> {
+    const machine = await this.access.machineOrThrow(actor, 'money.read', machineId);
+    const first = await this.costs.list(actor.operationId, machineId, { ...query, page: 1, pageSize: COST_EXPORT_PAGE });
+    if (first.total > COST_EXPORT_MAX_ROWS) {
+      throw new AppError('validation', `More than ${COST_EXPORT_MAX_ROWS} costs match; narrow the dates.`, [{ path: 'from', message: 'Export a shorter period.' }]);
+    }
+    const costs = this.costs;
+    async function* pages(): AsyncGenerator<CostEntryRow[]> {
+      yield first.rows;
+      for (let page = 2; (page - 1) * COST_EXPORT_PAGE < first.total; page++) {
+        yield (await costs.list(actor.operationId, machineId, { ...query, page, pageSize: COST_EXPORT_PAGE })).rows;
+      }
+    }
+    const slug = machine.name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'machine';
+    return csvDownload(`costs-${slug}-${new Date().toISOString().slice(0, 10)}.csv`, COST_COLUMNS, pages());
   }
 
   async get(actor: Actor, machineId: string, id: string): Promise<CostEntryDto> {

@@ -93,6 +93,29 @@ describe('cost entries', () => {
     expect((await t.http().patch(`${costs(id)}/${open.body.id}`).set(bearer(tokens.owner)).send({ amount: '95.00' })).status).toBe(200);
   });
 
+  it('exports the filtered costs table as CSV, with formula-like text neutralised, to money roles only', async () => {
+    const id = await newMachine();
+    expect((await add(id, { category: 'fuel', incurredOn: '2025-04-02', amount: '212.40', gallons: '60', paidByPartyId: hB(), vendor: '=HYPERLINK("http://x")' })).status).toBe(201);
+    expect((await add(id, { category: 'repair', incurredOn: '2025-05-09', amount: '1310.00', paidByPartyId: hB(), notes: 'new cutter bar, "heavy" duty' })).status).toBe(201);
+    expect((await add(id, { category: 'fuel', incurredOn: '2024-11-20', amount: '99.99', gallons: '30', paidByPartyId: hB() })).status).toBe(201);
+
+    const res = await t.http().get(`/api/machines/${id}/costs/export.csv?from=2025-01-01&sort=incurredOn`).set(bearer(tokens.bookkeeper));
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toContain('text/csv');
+    expect(res.headers['content-disposition']).toContain('attachment');
+    const lines = res.text.replace(/^\uFEFF/, '').trim().split(/\r?\n/);
+    expect(lines[0]).toBe('date,category,amount,gallons,meter hours,vendor,paid by,receipt,notes');
+    expect(lines).toHaveLength(3);
+    expect(lines[1]).toMatch(/^2025-04-02,fuel,212\.40,60\.000,,"'=HYPERLINK\(""http:\/\/x""\)",/);
+    expect(lines[2]).toMatch(/^2025-05-09,repair,1310\.00,,,,.*,"new cutter bar, ""heavy"" duty"$/);
+
+    const fuelOnly = await t.http().get(`/api/machines/${id}/costs/export.csv?category=fuel`).set(bearer(tokens.owner));
+    expect(fuelOnly.text.trim().split(/\r?\n/)).toHaveLength(3);
+    expect((await t.http().get(`/api/machines/${id}/costs/export.csv`).set(bearer(tokens.operator))).status).toBe(403);
+    expect((await t.http().get(`/api/machines/${id}/costs/export.csv`).set(bearer(otherTokens.owner))).status).toBe(404);
+    expect((await t.http().get(`/api/machines/${id}/costs/export.csv?from=2025-06-01&to=2025-01-01`).set(bearer(tokens.owner))).status).toBe(400);
+  });
+
   it('deletes a cost entry', async () => {
     const id = await newMachine();
     const cost = await add(id, { category: 'parts', incurredOn: '2025-03-03', amount: 42, paidByPartyId: hB() });

@@ -11,6 +11,7 @@ import { EmptyState } from '../../../components/EmptyState';
 import { ServerTable } from '../../../components/ServerTable';
 import { TABULAR } from '../tabular';
 import { formatDecimal } from '../../../lib/money';
+import { exportCostEntries } from '../api/exportCostEntries';
 import { useCostEntries } from '../api/listCostEntries';
 import { useHouseholds } from '../api/listHouseholds';
 import { downloadReceipt } from '../api/uploadReceipt';
@@ -76,7 +77,19 @@ export function CostsPanel({ machineId, canManage, ownPartyId }: CostsPanelProps
   const costs = useCostEntries(machineId, { page: params.page, pageSize: params.pageSize, sort: params.sort, category, from, to, paidByPartyId });
   const households = useHouseholds();
   const [adding, setAdding] = useState(false);
+  const [exporting, setExporting] = useState(false);
   const filtered = Boolean(category || from || to || paidByPartyId);
+
+  async function exportCsv() {
+    setExporting(true);
+    try {
+      await exportCostEntries(machineId, { sort: params.sort, category, from, to, paidByPartyId });
+    } catch (error) {
+      notifications.show({ color: 'red', title: 'The export did not download', message: error instanceof Error ? error.message : '' });
+    } finally {
+      setExporting(false);
+    }
+  }
 
   const toolbar = (
     <>
@@ -110,11 +123,16 @@ export function CostsPanel({ machineId, canManage, ownPartyId }: CostsPanelProps
           <Title order={2} size="h4">
             Costs
           </Title>
-          {canManage && (
-            <Button variant="light" leftSection={<IconPlus size={18} />} onClick={() => setAdding(true)}>
-              Add a cost
+          <Group gap="sm">
+            <Button variant="default" leftSection={<IconDownload size={18} />} loading={exporting} onClick={() => void exportCsv()}>
+              Export CSV{filtered ? ' of these costs' : ''}
             </Button>
-          )}
+            {canManage && (
+              <Button variant="light" leftSection={<IconPlus size={18} />} onClick={() => setAdding(true)}>
+                Add a cost
+              </Button>
+            )}
+          </Group>
         </Group>
         <ServerTable
           columns={columns}
