@@ -250,7 +250,25 @@ describe('billing a neighbour and getting paid by card', () => {
 
     const standing = await (await apiAs(DEMO_SIGN_INS.owner))<InvoiceJson>(`/api/invoices/${invoiceId}`);
     expect(standing).toMatchObject({ state: 'paid', balance: '0.00' });
-  }, 180_000);
+
+    // The owner hands part of the card payment back; the invoice owes that part again.
+    await inFreshPage(browser, DESKTOP, 'billing-owner-refund', async ({ page }) => {
+      await signInAndWait(page, DEMO_SIGN_INS.owner);
+      await page.goto(`${baseUrlOrThrow()}/invoices/${invoiceId}`);
+      const paymentsPanel = page.getByTestId('payments');
+      await paymentsPanel.getByRole('button', { name: 'Refund' }).click();
+      const refund = page.getByRole('dialog', { name: 'Refund a card payment' });
+      await refund.getByLabel('Amount to refund').fill('10.00');
+      await refund.getByLabel('Reason').fill('Tarps came back unused');
+      await refund.getByRole('button', { name: 'Refund to card' }).click();
+      await refund.waitFor({ state: 'hidden' });
+      await paymentsPanel.getByText('$10.00 refunded').waitFor();
+      await expect.poll(() => page.getByTestId('invoice-state').textContent()).toBe('Partly paid');
+      await screenshot(page, 'invoice-refunded-owner-desktop');
+    });
+    const refunded = await (await apiAs(DEMO_SIGN_INS.owner))<InvoiceJson>(`/api/invoices/${invoiceId}`);
+    expect(refunded).toMatchObject({ state: 'partly-paid', balance: '10.00' });
+  }, 240_000);
 });
 
 describe('correcting an issued invoice', () => {
