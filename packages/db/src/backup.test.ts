@@ -20,7 +20,7 @@ const run = promisify(execFile);
 // Named after the test database, so parallel runs against one cluster keep apart.
 const tag = randomUUID().replace(/-/g, '').slice(0, 8);
 const baseName = new URL(baseUrl).pathname.slice(1);
-const names = { source: `${baseName}_bk_src_${tag}`, restored: `${baseName}_bk_dst_${tag}` };
+const names = { source: `${baseName}_bk_src_${tag}`, restored: `${baseName}_bk_dst_${tag}`, live: `${baseName}_bk_live_${tag}`, copy: `${baseName}_bk_copy_${tag}` };
 const urlOf = (database: string) => Object.assign(new URL(baseUrl), { pathname: `/${database}` }).toString();
 const folder = mkdtempSync(join(tmpdir(), 'hitchbook-backup-test-'));
 const backupFile = join(folder, 'demo.dump');
@@ -67,9 +67,17 @@ async function tableDigests(database: string): Promise<Record<string, { rows: nu
   });
 }
 
+/** Invoices whose paid amount is not what their payments, less refunds, add up to. */
+async function paymentMismatches(c: pg.Client): Promise<unknown[]> {
+  const { rows } = await c.query(`
+    select i.id, i.amount_paid, coalesce(sum(p.amount - p.amount_refunded), 0) as received
+    from invoices i left join payments p on p.invoice_id = i.id
+    group by i.id having i.amount_paid <> coalesce(sum(p.amount - p.amount_refunded), 0)`);
+  return rows;
+}
+
 beforeAll(async () => {
-  await admin(`create database ${names.source}`);
-  await admin(`create database ${names.restored}`);
+  for (const name of Object.values(names)) await admin(`create database ${name}`);
   await runMigrations(urlOf(names.source));
   const h = createDb(urlOf(names.source), { max: 2 });
   try {
@@ -112,11 +120,7 @@ describe('npm run db:backup and db:restore', () => {
         where k.next_number <> 1 + coalesce((select max(number) from invoices i where i.operation_id = k.operation_id and i.series = k.series), 0)`);
       expect(counters.rows).toEqual([]);
 
-      const mismatched = await c.query(`
-        select i.id, i.amount_paid, coalesce(sum(p.amount) filter (where p.status = 'succeeded'), 0) as received
-        from invoices i left join payments p on p.invoice_id = i.id
-        group by i.id having i.amount_paid <> coalesce(sum(p.amount) filter (where p.status = 'succeeded'), 0)`);
-      expect(mismatched.rows).toEqual([]);
+      expect(await paymentMismatches(c)).toEqual([]);
       const paid = await c.query(`select 1 from invoices where status = 'issued' and kind = 'invoice' and amount_paid = total and total > 0`);
       expect(paid.rowCount).toBeGreaterThan(0);
 
@@ -134,6 +138,50 @@ describe('npm run db:backup and db:restore', () => {
         };
       });
     expect(await shape(names.restored)).toEqual(await shape(names.source));
+  }, 120_000);
+
+  it('takes a consistent backup while payments are being recorded', async () => {
+    // A copy of the demo stands in for the live database, so the source stays as the other cases expect.
+    expect((await dbScript(['restore', backupFile], names.live)).code).toBe(0);
+    const file = join(folder, 'under-load.dump');
+    const open = await withClient(names.live, async (c) => {
+      const { rows } = await c.query<{ id: string; operation_id: string }>(
+        `select id, operation_id from invoices where status = 'issued' and kind = 'invoice' and amount_paid < total order by total desc limit 1`,
+      );
+      return rows[0];
+    });
+    expect(open).toBeDefined();
+    const countPayments = (c: pg.Client) => c.query<{ n: string }>('select count(*) as n from payments').then((r) => Number(r.rows[0]!.n));
+    const before = await withClient(names.live, countPayments);
+
+    // Each payment and the invoice's paid amount change in one transaction, as the app records them.
+    let writing = true;
+    let recorded = 0;
+    const writer = withClient(names.live, async (c) => {
+      while (writing) {
+        await c.query('begin');
+        await c.query(`insert into payments (operation_id, invoice_id, method, amount, received_on, reference) values ($1, $2, 'cash', 0.01, current_date, 'Till')`, [open!.operation_id, open!.id]);
+        await c.query('update invoices set amount_paid = amount_paid + 0.01 where id = $1', [open!.id]);
+        await c.query('commit');
+        recorded += 1;
+      }
+    });
+    try {
+      const backup = await dbScript(['backup', file], names.live);
+      expect(backup, backup.stderr).toMatchObject({ code: 0 });
+    } finally {
+      writing = false;
+      await writer;
+    }
+    expect(recorded).toBeGreaterThan(0);
+    const restore = await dbScript(['restore', file], names.copy);
+    expect(restore, restore.stderr).toMatchObject({ code: 0 });
+    await withClient(names.copy, async (c) => {
+      expect(await paymentMismatches(c)).toEqual([]);
+      const n = await countPayments(c);
+      expect(n).toBeGreaterThanOrEqual(before);
+      expect(n).toBeLessThanOrEqual(before + recorded);
+    });
   }, 120_000);
 
   it('refuses to restore over data, or from a file that is not a backup, with a message that says why', async () => {
