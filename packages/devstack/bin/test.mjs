@@ -27,7 +27,7 @@ const E2E_DATABASE = 'hitchbook_e2e';
 const CHROMIUM = '/usr/bin/chromium';
 
 function budgetMs() {
-  const raw = process.env.HB_TEST_BUDGET_MINUTES ?? '18';
+  const raw = process.env.HB_TEST_BUDGET_MINUTES ?? '27';
   const minutes = Number(raw);
   if (!(minutes > 0)) throw new DevstackError(`HB_TEST_BUDGET_MINUTES must be a positive number of minutes, got "${raw}"`);
   return minutes * 60_000;
