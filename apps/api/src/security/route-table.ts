@@ -63,6 +63,7 @@ export const ROWS: Record<string, Row> = {
   'PATCH /api/machines/:id': { allow: OWNER_PARTNER, path: (w) => `/api/machines/${w.ids.machine}`, ok: 400 },
   'DELETE /api/machines/:id': { allow: OWNER_PARTNER, path: async (w, c) => `/api/machines/${OWNER_PARTNER.includes(c as Staff) ? await throwaway.machine(w) : w.ids.machine}`, ok: 204 },
   'GET /api/machines/:id/costs': { allow: MONEY_READERS, path: (w) => `/api/machines/${w.ids.machine}/costs`, ok: 200 },
+  'GET /api/machines/:id/costs/export.csv': { allow: MONEY_READERS, path: (w) => `/api/machines/${w.ids.machine}/costs/export.csv`, ok: 200 },
   'GET /api/machines/:id/costs/:costId': { allow: MONEY_READERS, path: (w) => `/api/machines/${w.ids.machine}/costs/${w.ids.cost}`, ok: 200 },
   'POST /api/machines/:id/costs': { allow: OWNER_PARTNER, path: (w) => `/api/machines/${w.ids.machine}/costs`, ok: 400 },
   'PATCH /api/machines/:id/costs/:costId': { allow: OWNER_PARTNER, path: (w) => `/api/machines/${w.ids.machine}/costs/${w.ids.cost}`, ok: 400 },
