@@ -5,8 +5,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { addEntry, addNeighbourSheet, createBillingWorld } from '../modules/invoices/billing-world.fixture.js';
 import { createOperation, signInAll, type OperationFixture } from '../test-support/fixtures.js';
 import { createTestApp, type TestApp } from '../test-support/test-app.js';
-import { hostileBodyFor, type FuzzContext } from './hostile-json.js';
-import { listWriteRoutes, type WriteRoute } from './route-bodies.js';
+import { hostileBodyFor, hostileQueryFor, type FuzzContext } from './hostile-json.js';
+import { listRoutesWithSchemas, listWriteRoutes, type WriteRoute } from './route-bodies.js';
 
 /**
  * Property-based fuzzing of every write route the application declares, so a new route is fuzzed
@@ -15,6 +15,7 @@ import { listWriteRoutes, type WriteRoute } from './route-bodies.js';
  */
 const SEED = Number(process.env.FUZZ_SEED ?? 20261202);
 const RUNS = Number(process.env.FUZZ_RUNS ?? 8);
+const QUERY_RUNS = Math.max(1, Math.round(RUNS / 2));
 
 /** What must never reach a caller: stack frames, file paths, SQL or driver wording. */
 const LEAK = /\bat [\w.<>]+ \(|node_modules|\/src\/|\.[jt]s:\d+|\bSELECT\b|\bINSERT INTO\b|\bUPDATE \w+ SET\b|violates|syntax error|duplicate key|TypeError|ReferenceError|RangeError/i;
@@ -117,6 +118,37 @@ describe('fuzzed write-route bodies', () => {
     // FUZZ_REPORT=1 shows how deep the bodies got (a route that never answers 2xx is only fuzzing its
     // validation) and, under "0", the milliseconds each route took.
     if (process.env.FUZZ_REPORT) console.log(Object.entries(statuses).map(([r, s]) => `${r} ${JSON.stringify(s)}`).join('\n'));
+    expect(failures).toEqual([]);
+  }, 600_000);
+
+  it('never answers 5xx or leaks internals, whatever query string arrives', async () => {
+    const routes = listRoutesWithSchemas(t.app).filter((r) => r.method === 'GET' && r.querySchema);
+    expect(routes.length).toBeGreaterThan(10);
+    const failures: string[] = [];
+    for (const [i, route] of routes.entries()) {
+      const path = pathFor(route);
+      const token = tokenFor(route);
+      await fc.assert(
+        fc.asyncProperty(hostileQueryFor(route.querySchema!, ctx), async (query) => {
+          const search = new URLSearchParams();
+          for (const [k, v] of Object.entries(query)) {
+            for (const one of Array.isArray(v) ? v : [v]) {
+              if (one !== undefined) search.append(k, typeof one === 'string' ? one : JSON.stringify(one) ?? '');
+            }
+          }
+          let req = t.http().get(`${path}?${search.toString()}`);
+          if (token) req = req.set('Authorization', `Bearer ${token}`);
+          const res = await req.buffer(true);
+          const text = res.text ?? '';
+          if (res.status >= 500 || LEAK.test(text.slice(0, 2000))) {
+            failures.push(`GET ${route.path} (seed ${SEED + i}) answered ${res.status} ${text.slice(0, 300)} to ?${search.toString().slice(0, 300)}`);
+            return false;
+          }
+          return true;
+        }),
+        { seed: SEED + i, numRuns: QUERY_RUNS, endOnFailure: true },
+      ).catch(() => undefined);
+    }
     expect(failures).toEqual([]);
   }, 600_000);
 

@@ -263,3 +263,14 @@ export function hostileBodyFor(schema: z.ZodType | null, ctx: FuzzContext): fc.A
     { weight: 2, arbitrary: hostileBody },
   );
 }
+
+/** A query object for a route: valid, valid but for one hostile parameter, or repeated parameters. */
+export function hostileQueryFor(schema: z.ZodType, ctx: FuzzContext): fc.Arbitrary<Record<string, unknown>> {
+  const asQuery = (v: unknown): Record<string, unknown> => (isPlain(v) ? v : { q: v });
+  const valid = validValue(schema, ctx).map(asQuery);
+  return fc.oneof(
+    { weight: 3, arbitrary: valid },
+    { weight: 4, arbitrary: fc.tuple(valid, fc.nat(), hostileLeaf).map(([v, pick, h]) => asQuery(poisoned(v, pick, h))) },
+    { weight: 1, arbitrary: fc.tuple(valid, fc.string({ maxLength: 8 })).map(([v, s]) => Object.fromEntries(Object.entries(v).map(([k, x]) => [k, [x, s]]))) },
+  );
+}

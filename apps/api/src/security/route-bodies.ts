@@ -9,6 +9,8 @@ import { ZodPipe } from '../common/validation/zod.pipe.js';
 export interface WriteRoute extends RouteInfo {
   /** The zod schema its @Body() pipe validates with, or null when the route reads no JSON body. */
   bodySchema: z.ZodType | null;
+  /** The zod schema its @Query() pipe validates with, or null when it reads no query. */
+  querySchema: z.ZodType | null;
 }
 
 const WRITE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
@@ -23,22 +25,25 @@ function controllerTypes(app: INestApplication): Map<string, Function> {
   return types;
 }
 
+/** Every route the application serves, with the zod schemas of its body and query. */
+export function listRoutesWithSchemas(app: INestApplication): WriteRoute[] {
+  const types = controllerTypes(app);
+  return listRoutes(app).map((route) => {
+    const type = types.get(route.controller);
+    const args = (type ? Reflect.getMetadata(ROUTE_ARGS_METADATA, type, route.handler) : undefined) as Record<string, { pipes?: unknown[] }> | undefined;
+    const schemaOf = (kind: RouteParamtypes): z.ZodType | null => {
+      for (const [key, arg] of Object.entries(args ?? {})) {
+        if (Number(key.split(':')[0]) !== kind) continue;
+        const pipe = arg.pipes?.find((p): p is ZodPipe<z.ZodType> => p instanceof ZodPipe);
+        if (pipe) return (pipe as unknown as { schema: z.ZodType }).schema;
+      }
+      return null;
+    };
+    return { ...route, bodySchema: schemaOf(RouteParamtypes.BODY), querySchema: schemaOf(RouteParamtypes.QUERY) };
+  });
+}
+
 /** Every route that changes something, read from the application itself, with the schema of its body. */
 export function listWriteRoutes(app: INestApplication): WriteRoute[] {
-  const types = controllerTypes(app);
-  return listRoutes(app)
-    .filter((r) => WRITE_METHODS.has(r.method))
-    .map((route) => {
-      const type = types.get(route.controller);
-      const args = (type ? Reflect.getMetadata(ROUTE_ARGS_METADATA, type, route.handler) : undefined) as
-        | Record<string, { pipes?: unknown[] }>
-        | undefined;
-      let bodySchema: z.ZodType | null = null;
-      for (const [key, arg] of Object.entries(args ?? {})) {
-        if (Number(key.split(':')[0]) !== RouteParamtypes.BODY) continue;
-        const pipe = arg.pipes?.find((p): p is ZodPipe<z.ZodType> => p instanceof ZodPipe);
-        if (pipe) bodySchema = (pipe as unknown as { schema: z.ZodType }).schema;
-      }
-      return { ...route, bodySchema };
-    });
+  return listRoutesWithSchemas(app).filter((r) => WRITE_METHODS.has(r.method));
 }
