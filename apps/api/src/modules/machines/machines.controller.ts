@@ -1,4 +1,4 @@
-import { Body, Controller, Delete, Get, HttpCode, Inject, Param, Patch, Post, Query } from '@nestjs/common';
+import { Body, Controller, Delete, Get, HttpCode, Inject, Param, Patch, Post, Query, type StreamableFile } from '@nestjs/common';
 import type { Page } from '@hitchbook/shared/schemas/common';
 import {
   machineCreateSchema,
@@ -30,6 +30,13 @@ export class MachinesController {
   @Get()
   list(@CurrentActor() actor: Actor, @Query(new ZodPipe(machineListQuerySchema)) query: MachineListQuery): Promise<Page<MachineDto>> {
     return this.machines.list(actor, query);
+  }
+
+  // Declared before ':id' so the path is never read as an id.
+  @Roles('owner', 'partner', 'operator', 'bookkeeper')
+  @Get('export.csv')
+  exportCsv(@CurrentActor() actor: Actor, @Query(new ZodPipe(machineListQuerySchema)) query: MachineListQuery): Promise<StreamableFile> {
+    return this.machines.exportCsv(actor, query);
   }
 
   @Roles('owner', 'partner', 'operator', 'bookkeeper')

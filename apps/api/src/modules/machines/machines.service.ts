@@ -1,4 +1,4 @@
-import { Inject, Injectable } from '@nestjs/common';
+import { Inject, Injectable, type StreamableFile } from '@nestjs/common';
 import { Decimal } from 'decimal.js';
 import { FOREIGN_KEY_VIOLATION, pgErrorOf, type Executor } from '@hitchbook/db';
 import { Dec } from '@hitchbook/shared/decimal';
@@ -6,6 +6,7 @@ import { machineClassOrThrow } from '@hitchbook/shared/machine-classes';
 import type { Page } from '@hitchbook/shared/schemas/common';
 import { machineRuleIssues, type MachineCreate, type MachineDto, type MachineListQuery, type MachineUpdate } from '@hitchbook/shared/schemas/machines';
 import type { Actor } from '../../common/auth/actor.js';
+import { csvDownload, type CsvColumn } from '../../common/csv/csv-writer.js';
 import { AppError, conflict, forbidden, invalid } from '../../common/errors/app-error.js';
 import { AuditService } from '../../core/audit.service.js';
 import { DB, type DbHandle } from '../../core/database.js';
@@ -28,6 +29,30 @@ function columnsOf(input: MachineUpdate): Partial<MachineValues> {
   return values as Partial<MachineValues>;
 }
 
+/** A fleet is dozens of machines; the cap only stops a runaway export. */
+const EXPORT_MAX_MACHINES = 5_000;
+const EXPORT_PAGE = 200;
+
+const MACHINE_COLUMNS: CsvColumn<MachineDto>[] = [
+  { header: 'name', value: (m) => m.name },
+  { header: 'class', value: (m) => m.classLabel },
+  { header: 'kind', value: (m) => m.kind },
+  { header: 'status', value: (m) => m.status },
+  { header: 'year', kind: 'number', value: (m) => m.year },
+  { header: 'make', value: (m) => m.make },
+  { header: 'model', value: (m) => m.model },
+  { header: 'unit number', value: (m) => m.unitNumber },
+  { header: 'serial number', value: (m) => m.serialNumber },
+  { header: 'pto hp', kind: 'number', value: (m) => m.ptoHp },
+  { header: 'fuel', value: (m) => m.fuelType },
+  { header: 'owners', value: (m) => m.owners.map((o) => `${o.name} ${new Decimal(o.sharePct).toString()} %`).join('; ') },
+  { header: 'hour meter', kind: 'number', value: (m) => m.lastReading?.hours },
+];
+const PRICE_COLUMNS: CsvColumn<MachineDto>[] = [
+  { header: 'list price', kind: 'number', value: (m) => m.listPrice },
+  { header: 'purchase price', kind: 'number', value: (m) => m.purchasePrice },
+];
+
 @Injectable()
 export class MachinesService {
   constructor(
@@ -48,6 +73,19 @@ export class MachinesService {
     const [owners, readings] = await Promise.all([this.shares.inForceOnForMachines(actor.operationId, ids, today), this.readings.latestOfMachines(actor.operationId, ids)]);
     const money = this.access.seesMoney(actor);
     return { items: rows.map((r) => toMachineDto(r, owners.get(r.id) ?? [], money, readings.get(r.id) ?? null)), total, page: query.page, pageSize: query.pageSize };
+  }
+
+  /** The filtered fleet table as CSV in the table's order; prices only for roles that see money. */
+  async exportCsv(actor: Actor, query: MachineListQuery): Promise<StreamableFile> {
+    const first = await this.list(actor, { ...query, page: 1, pageSize: EXPORT_PAGE });
+    if (first.total > EXPORT_MAX_MACHINES) throw invalid('q', `More than ${EXPORT_MAX_MACHINES} machines match; narrow the filters.`);
+    const list = (page: number) => this.list(actor, { ...query, page, pageSize: EXPORT_PAGE });
+    async function* pages(): AsyncGenerator<MachineDto[]> {
+      yield first.items;
+      for (let page = 2; (page - 1) * EXPORT_PAGE < first.total; page++) yield (await list(page)).items;
+    }
+    const columns = this.access.seesMoney(actor) ? [...MACHINE_COLUMNS, ...PRICE_COLUMNS] : MACHINE_COLUMNS;
+    return csvDownload(`machines-${todayIso()}.csv`, columns, pages());
   }
 
   async get(actor: Actor, id: string): Promise<MachineDto> {

@@ -106,9 +106,13 @@ describe('machines', () => {
     expect(ownedByB.body.items.map((m: { id: string }) => m.id)).toEqual([beta.body.id]);
     const bySerial = await t.http().get(`/api/machines?q=SN-${tag}`).set(bearer(tokens.owner));
     expect(bySerial.body.total).toBe(1);
-    const bad = await t.http().get('/api/machines?status=scrapped&sort=price&q=%00&page=1&page=2').set(bearer(tokens.owner));
+    const bad = await t.http().get('/api/machines?status=scrapped&sort=price&page=1&page=2').set(bearer(tokens.owner));
     expect(bad.status).toBe(400);
-    expect(bad.body.issues.map((i: { path: string }) => i.path).sort()).toEqual(['page', 'q', 'sort', 'status']);
+    expect(bad.body.issues.map((i: { path: string }) => i.path).sort()).toEqual(['page', 'sort', 'status']);
+    // A NUL character is refused at its field before anything else is read.
+    const nul = await t.http().get('/api/machines?q=%00').set(bearer(tokens.owner));
+    expect(nul.status).toBe(400);
+    expect(nul.body.issues.map((i: { path: string }) => i.path)).toEqual(['q']);
   });
 
   it("lists each machine's newest meter reading, the same one its meter history starts with", async () => {
@@ -140,6 +144,31 @@ describe('machines', () => {
       expect(listed.get(id)).toEqual(first ? { readAt: first.readAt, hours: first.hours, totalHours: first.totalHours } : null);
       expect((await t.http().get(`/api/machines/${id}`).set(bearer(tokens.operator))).body.lastReading).toEqual(listed.get(id));
     }
+  });
+
+  it('exports the filtered fleet as CSV in the table order, with prices only for money roles', async () => {
+    const tag = `X${Date.now()}`;
+    await create(tokens.owner, { ...TRACTOR, name: `${tag} Tractor`, owners: [{ partyId: hA(), sharePct: 60 }, { partyId: hB(), sharePct: 40 }] });
+    await create(tokens.owner, { name: `${tag} Drill`, classId: 'grain-drill', year: 2011, owners: [{ partyId: hB(), sharePct: 100 }] });
+    const rows = (res: { text: string }) => res.text.replace(/^\uFEFF/, '').trim().split(/\r?\n/);
+
+    const owner = await t.http().get(`/api/machines/export.csv?q=${tag}&sort=-year`).set(bearer(tokens.owner));
+    expect(owner.status).toBe(200);
+    expect(owner.headers['content-type']).toContain('text/csv');
+    const [header, first, second] = rows(owner);
+    expect(header).toBe('name,class,kind,status,year,make,model,unit number,serial number,pto hp,fuel,owners,hour meter,list price,purchase price');
+    expect(first).toContain(`${tag} Tractor`);
+    expect(first).toMatch(/,2016,/);
+    expect(first).toMatch(/Household A \S+ 60 %; Household B \S+ 40 %/);
+    expect(first).toMatch(/,210000(\.00)?,184500\.00$/);
+    expect(second).toContain(`${tag} Drill`);
+    expect(rows(owner)).toHaveLength(3);
+
+    const operator = await t.http().get(`/api/machines/export.csv?q=${tag}&kind=implement`).set(bearer(tokens.operator));
+    expect(rows(operator)[0]).not.toContain('price');
+    expect(rows(operator)).toHaveLength(2);
+    expect((await t.http().get('/api/machines/export.csv').set(bearer(tokens.customer))).status).toBe(403);
+    expect(rows(await t.http().get(`/api/machines/export.csv?q=${tag}`).set(bearer(otherTokens.owner)))).toHaveLength(1);
   });
 
   it('deletes a machine entered by mistake but not one with history (409, then sold or retired)', async () => {

@@ -1,6 +1,8 @@
+import { useState } from 'react';
 import { Anchor, Badge, Button, Group, Select, Stack, Text } from '@mantine/core';
 import { useMediaQuery } from '@mantine/hooks';
-import { IconPlus } from '@tabler/icons-react';
+import { notifications } from '@mantine/notifications';
+import { IconDownload, IconPlus } from '@tabler/icons-react';
 import type { MRT_ColumnDef } from 'mantine-react-table';
 import { Link } from 'react-router-dom';
 import { MACHINE_CLASSES, type MachineKind } from '@hitchbook/shared/machine-classes';
@@ -12,6 +14,7 @@ import { accessTo } from '../../../lib/areas';
 import { useSessionUserOrThrow } from '../../../lib/auth';
 import { useListParams } from '../../../lib/listParams';
 import { paths } from '../../../lib/paths';
+import { exportMachines } from '../api/exportMachines';
 import { useMachines } from '../api/listMachines';
 import { MachineClassSelect } from '../components/MachineClassSelect';
 import { MachineHours } from '../components/MachineHours';
@@ -97,6 +100,18 @@ export function Component() {
   const machines = useMachines({ ...params, status, kind, classId });
   const filtered = Boolean(params.q || status || kind || classId);
   const phone = useMediaQuery('(max-width: 48em)') ?? false;
+  const [exporting, setExporting] = useState(false);
+
+  async function exportCsv() {
+    setExporting(true);
+    try {
+      await exportMachines({ q: params.q, sort: params.sort, status, kind, classId });
+    } catch (error) {
+      notifications.show({ color: 'red', title: 'The export did not download', message: error instanceof Error ? error.message : '' });
+    } finally {
+      setExporting(false);
+    }
+  }
 
   const toolbar = (
     <>
@@ -136,11 +151,16 @@ export function Component() {
         title="Machines"
         description="Power units, self-propelled machines and implements, with who owns what share."
         actions={
-          canManage && (
-            <Button component={Link} to={paths.newMachine()} leftSection={<IconPlus size={20} />}>
-              Add machine
+          <Group gap="sm">
+            <Button variant="default" leftSection={<IconDownload size={20} />} loading={exporting} onClick={() => void exportCsv()}>
+              Export CSV{filtered ? ' of these machines' : ''}
             </Button>
-          )
+            {canManage && (
+              <Button component={Link} to={paths.newMachine()} leftSection={<IconPlus size={20} />}>
+                Add machine
+              </Button>
+            )}
+          </Group>
         }
       />
       <ServerTable
