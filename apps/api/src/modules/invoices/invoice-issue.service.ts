@@ -166,6 +166,8 @@ export class InvoiceIssueService {
       if (total.neg().gt(left)) {
         throw invalid('lines', `This credits ${toMoneyString(total.neg())}, but only ${toMoneyString(left)} of ${numberLabel(original.series, original.number)} is left to credit.`);
       }
+      // The balance drops: a pay link opened for the old one would take too much.
+      await expireOpenSessions(this.stripe, tx, operationId, id, { bestEffort: true });
       const party = (await this.repo.party(operationId, original.partyId, tx))!;
       const issuer = await this.repo.operation(operationId, tx);
       const number = await takeNextNumber(tx, operationId, SERIES['credit-note']);

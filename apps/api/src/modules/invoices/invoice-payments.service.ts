@@ -1,6 +1,7 @@
 import { Inject, Injectable } from '@nestjs/common';
 import type { Decimal } from 'decimal.js';
 import { and, eq, sql } from 'drizzle-orm';
+import type Stripe from 'stripe';
 import { paymentRefunds, payments, type Executor, type Invoice, type Payment } from '@hitchbook/db';
 import { Dec } from '@hitchbook/shared/decimal';
 import { formatMoney, fromCents, toMoneyString } from '@hitchbook/shared/money';
@@ -10,6 +11,8 @@ import { conflict, invalid, notFound } from '../../common/errors/app-error.js';
 import { AuditService } from '../../core/audit.service.js';
 import { DB, type DbHandle } from '../../core/database.js';
 import { invoiceScopeOf, wholeOperation } from '../customer-portal/invoice-scope.js';
+import { expireOpenSessions } from '../payments/open-sessions.js';
+import { STRIPE } from '../payments/stripe-client.js';
 import { toPaymentDto, toSummaryDto } from './invoice.dto.js';
 import { InvoiceMail } from './invoice-mail.js';
 import { InvoicesRepository } from './invoices.repository.js';
@@ -47,6 +50,7 @@ export class InvoicePaymentsService {
     @Inject(InvoicesRepository) private readonly repo: InvoicesRepository,
     @Inject(InvoiceMail) private readonly mail: InvoiceMail,
     @Inject(AuditService) private readonly audit: AuditService,
+    @Inject(STRIPE) private readonly stripe: Stripe | null,
   ) {}
 
   async list(actor: Actor, invoiceId: string): Promise<PaymentDto[]> {
@@ -66,6 +70,8 @@ export class InvoicePaymentsService {
       if (input.amount.gt(balance)) throw invalid('amount', `At most the open balance of ${toMoneyString(balance.isNegative() ? 0 : balance)}.`);
       const today = await todayOf(tx);
       if (input.receivedOn > today) throw invalid('receivedOn', 'A payment cannot be received in the future.');
+      // A pay link for the old balance would take too much once this is booked.
+      await expireOpenSessions(this.stripe, tx, scope.operationId, invoiceId, { bestEffort: true });
       const [payment] = await tx
         .insert(payments)
         .values({

@@ -7,11 +7,21 @@ const linkNotCancelled = () => new AppError('unavailable', 'The invoice’s card
 
 /**
  * Expires every pay link still open for an invoice, so nobody can pay a document that no longer
- * stands. Runs inside the caller's transaction with the invoice locked: a checkout cannot be opened
+ * stands or a balance that has changed. Runs inside the caller's transaction with the invoice locked: a checkout cannot be opened
  * meanwhile. A session the payer completed a moment ago cannot be expired; the caller is refused, as
  * the money is on its way and the webhook will record it.
  */
-export async function expireOpenSessions(stripe: Stripe | null, tx: Executor, operationId: string, invoiceId: string): Promise<string[]> {
+export async function expireOpenSessions(stripe: Stripe | null, tx: Executor, operationId: string, invoiceId: string, options: { bestEffort?: boolean } = {}): Promise<string[]> {
+  if (options.bestEffort) {
+    try {
+      return await expireOpenSessions(stripe, tx, operationId, invoiceId);
+    } catch (err) {
+      // A change of balance (a cheque, a credit note) goes through when Stripe cannot be reached: a payment
+      // through the old link is then booked with the refund due flagged, not lost.
+      if (err instanceof AppError && err.code === 'unavailable') return [];
+      throw err;
+    }
+  }
   const open = await tx
     .select({ id: checkoutSessions.id, stripeSessionId: checkoutSessions.stripeSessionId })
     .from(checkoutSessions)

@@ -356,6 +356,29 @@ describe('voiding an invoice with a pay link out', () => {
   });
 });
 
+describe('a balance that changes while a pay link is out', () => {
+  it('expires the link when a cheque is recorded or a credit note issued, and the next checkout asks for the new balance', async () => {
+    const invoice = await issuedInvoice();
+    expect((await checkout(invoice.id)).status).toBe(200);
+    const first = await storedSession(invoice.id);
+    const cheque = await t.http().post(`/api/invoices/${invoice.id}/payments`).set(bearer(tokens.owner)).send({ method: 'cheque', amount: '60', receivedOn: '2025-05-20' });
+    expect(cheque.status).toBe(201);
+    expect((await stripe.checkout.sessions.retrieve(first.stripeSessionId)).status).toBe('expired');
+    expect((await payOnFake(first.stripeSessionId, '4242 4242 4242 4242')).status).toBe(400);
+
+    const again = await checkout(invoice.id);
+    expect(again.body.amount).toBe('150.00');
+    const second = (await t.dbh.db.select().from(checkoutSessions).where(eq(checkoutSessions.invoiceId, invoice.id))).find((s) => s.status === 'open')!;
+    expect(second.amountCents).toBe(15000);
+    const credited = await t.http().post(`/api/invoices/${invoice.id}/credit-notes`).set(bearer(tokens.owner)).send({ reason: 'Rained off', lines: [{ description: 'Rained off', amount: '50.00' }] });
+    expect(credited.status).toBe(201);
+    expect((await stripe.checkout.sessions.retrieve(second.stripeSessionId)).status).toBe('expired');
+    const statuses = (await t.dbh.db.select().from(checkoutSessions).where(eq(checkoutSessions.invoiceId, invoice.id))).map((s) => s.status);
+    expect(statuses).toEqual(['expired', 'expired']);
+    expect((await checkout(invoice.id)).body.amount).toBe('100.00');
+  });
+});
+
 describe('refunds of card payments', () => {
   it('lets the owner refund part and then the rest; the invoice goes from paid to partly paid to open', async () => {
     const invoice = await issuedInvoice();
