@@ -19,6 +19,7 @@ let t: TestApp;
 let fx: OperationFixture;
 let owner: string;
 let squareUpId: string;
+let tractorId: string;
 
 beforeAll(async () => {
   t = await createTestApp();
@@ -37,6 +38,7 @@ beforeAll(async () => {
   const entry = await addEntry(db, world, { workDate: '2025-06-03', workTypeId: world.workTypes.mowing, fieldId: world.fields.creekBottom, billToPartyId: fx.customers[0], hours: '2.50', acres: '20.000' });
   await db.update(workEntries).set({ notes: '=1+1, "quoted", and a comma' }).where(eq(workEntries.id, entry));
   await db.insert(costEntries).values({ operationId: op, machineId: world.machines.tractor, category: 'repair', incurredOn: '2025-05-10', amount: '112.50', vendor: '@vendor', notes: '+notes', paidByPartyId: fx.households[0] });
+  tractorId = world.machines.tractor;
   owner = (await signIn(t, fx.members.owner.email)).token;
   const created = await t.http().post('/api/square-ups').set('Authorization', `Bearer ${owner}`).send({ name: '=SquareUp()', periodFrom: '2025-01-01', periodTo: '2025-12-31' });
   expect(created.status, JSON.stringify(created.body)).toBe(201);
@@ -51,14 +53,21 @@ function csvRoutes() {
 describe('CSV exports', () => {
   it('are all covered here', () => {
     expect(csvRoutes().map((r) => r.path).sort()).toEqual(
-      ['/api/reports/custom-income.csv', '/api/reports/machine-rates.csv', '/api/square-ups/:id/statement.csv', '/api/work-entries/export.csv'].sort(),
+      [
+        '/api/machines/:id/costs/export.csv',
+        '/api/machines/export.csv',
+        '/api/reports/custom-income.csv',
+        '/api/reports/machine-rates.csv',
+        '/api/square-ups/:id/statement.csv',
+        '/api/work-entries/export.csv',
+      ].sort(),
     );
   });
 
   it('never start a text cell with a formula trigger, and still carry the hostile text as text', async () => {
     const neutralised: string[] = [];
     for (const route of csvRoutes()) {
-      const path = route.path.replace(':id', squareUpId);
+      const path = route.path.replace(':id', route.path.startsWith('/api/machines') ? tractorId : squareUpId);
       const res = await t.http().get(path).query(route.path.startsWith('/api/reports') ? { year: 2025 } : {}).set('Authorization', `Bearer ${owner}`).buffer(true);
       expect(res.status, `${path}: ${res.text}`).toBe(200);
       expect(res.headers['content-type']).toMatch(/^text\/csv/);
