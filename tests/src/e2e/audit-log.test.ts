@@ -25,8 +25,11 @@ beforeAll(async () => {
   noteText = `Hitch pins greased ${Date.now()}`;
   const changed = await owner('PATCH', `/api/machines/${machine.id}`, { notes: noteText });
   expect(changed.status).toBe(200);
-  // The other browser tests find the machine as the demo left it.
-  restore = () => owner('PATCH', `/api/machines/${machine.id}`, { notes: machine.notes });
+  const parties = await owner('GET', '/api/parties?kind=customer&pageSize=1');
+  const party = parties.body.items[0] as { id: string; notes: string | null };
+  expect((await owner('PATCH', `/api/parties/${party.id}`, { notes: `Gate code changed ${Date.now()}` })).status).toBe(200);
+  // The other browser tests find the machine and the customer as the demo left them.
+  restore = () => Promise.all([owner('PATCH', `/api/machines/${machine.id}`, { notes: machine.notes }), owner('PATCH', `/api/parties/${party.id}`, { notes: party.notes })]);
 });
 
 afterAll(async () => {
@@ -40,16 +43,18 @@ describe('audit log', () => {
       await signInAndWait(page, DEMO_SIGN_INS.owner);
       await page.getByTestId('main-nav').getByText('Audit log', { exact: true }).click();
       await page.getByRole('heading', { name: 'Audit log' }).waitFor();
-      const first = page.getByRole('row').nth(1);
-      await first.getByText('Machine updated').waitFor();
-      await first.getByText(noteText).waitFor();
+      await page.getByText(noteText).first().waitFor();
+      // Newest first: the customer was changed after the machine.
+      const actions = await page.getByText(/^(Machine updated|Household or customer updated)$/).allTextContents();
+      expect(actions.slice(0, 2)).toEqual(['Household or customer updated', 'Machine updated']);
       await screenshot(page, 'audit-log-owner-desktop');
 
       await page.getByRole('textbox', { name: 'Kind of record' }).click();
-      await page.getByRole('option', { name: 'Invoice', exact: true }).click();
-      await expect.poll(() => new URL(page.url()).searchParams.get('entityType')).toBe('invoice');
-      await expect.poll(async () => (await page.getByText('Machine updated').count()) === 0).toBe(true);
-      await screenshot(page, 'audit-log-invoices-desktop');
+      await page.getByRole('option', { name: 'Machine', exact: true }).click();
+      await expect.poll(() => new URL(page.url()).searchParams.get('entityType')).toBe('machine');
+      await expect.poll(() => page.getByText('Household or customer updated').count()).toBe(0);
+      await page.getByText(noteText).first().waitFor();
+      await screenshot(page, 'audit-log-machines-desktop');
     });
   });
 
