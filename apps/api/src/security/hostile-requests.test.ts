@@ -3,7 +3,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { eq } from 'drizzle-orm';
-import { invoices, machines, memberships, meterReadings, operations, parties, uploads } from '@hitchbook/db';
+import { fields, invoices, machines, memberships, meterReadings, operations, parties, uploads } from '@hitchbook/db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { addEntry, addNeighbourSheet, createBillingWorld, type BillingWorld } from '../modules/invoices/billing-world.fixture.js';
 import { createOperation, signInAll, type OperationFixture } from '../test-support/fixtures.js';
@@ -237,5 +237,18 @@ describe('requests that reach past what the screens send', () => {
     }
     expect((await t.http().get('/api/auth/me').set('Cookie', `access_token=${token}; hb_access=${token}`)).status).toBe(401);
     expect((await t.http().get('/api/auth/me').set('Authorization', `Bearer ${token}`)).status).toBe(200);
+  });
+});
+
+describe('field boundaries no field could have', () => {
+  it('refuses a ring round the whole earth with 400 instead of overflowing the acres column', async () => {
+    const earth = { type: 'Polygon', coordinates: [[[-180, -90], [180, -90], [180, 90], [-180, 90], [-180, -90]]] };
+    const res = await t.http().post('/api/fields').set(auth('owner')).send({ name: 'Everywhere', acres: '10', boundary: earth });
+    expect(res.status).toBe(400);
+    expect(res.body.issues).toEqual([{ path: 'boundary', message: expect.stringMatching(/more than the 100,000 a field may have/) }]);
+    const stored = await t.dbh.db.select().from(fields).where(eq(fields.operationId, fx.operationId));
+    expect(stored.map((f) => f.name)).not.toContain('Everywhere');
+    const patched = await t.http().patch(`/api/fields/${world.fields.schoolhouse}`).set(auth('owner')).send({ boundary: earth });
+    expect(patched.status).toBe(400);
   });
 });

@@ -147,6 +147,8 @@ export class FieldsService {
   }
 }
 
+const MAX_BOUNDARY_ACRES = 100_000;
+
 const boundaryPath = (input: { boundaryUploadId?: string }) => (input.boundaryUploadId ? 'boundaryUploadId' : 'boundary');
 
 /** Audit rows keep the boundary's acres, not its (possibly very long) coordinate list. */
@@ -159,5 +161,7 @@ function boundaryColumns(boundary: BoundaryGeometry | null, path: string): Pick<
   if (boundary === null) return { boundary: null, boundaryAcres: null };
   const acres = boundaryAcres(boundary);
   if (acres.lte(0)) throw invalid(path, 'The boundary encloses no area.');
+  // The same ceiling as typed acres: a ring drawn round the wrong way or round a continent is a mistake.
+  if (acres.gt(MAX_BOUNDARY_ACRES)) throw invalid(path, `The boundary encloses ${fixed(acres, 0)} acres, more than the ${MAX_BOUNDARY_ACRES.toLocaleString('en-US')} a field may have; check its points.`);
   return { boundary, boundaryAcres: fixed(acres, 3) };
 }
