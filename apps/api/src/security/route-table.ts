@@ -57,6 +57,7 @@ export const ROWS: Record<string, Row> = {
   'PATCH /api/parties/:id': { allow: OWNER_PARTNER, path: (w) => `/api/parties/${w.ids.party}`, ok: 400 },
 
   'GET /api/machines': { allow: STAFF_READERS, path: () => '/api/machines', ok: 200 },
+  'GET /api/machines/export.csv': { allow: STAFF_READERS, path: () => '/api/machines/export.csv', ok: 200 },
   'GET /api/machines/:id': { allow: STAFF_READERS, path: (w) => `/api/machines/${w.ids.machine}`, ok: 200 },
   'GET /api/machines/:id/summary': { allow: STAFF_READERS, path: (w) => `/api/machines/${w.ids.machine}/summary`, ok: 200 },
   'POST /api/machines': { allow: OWNER_PARTNER, path: () => '/api/machines', ok: 400 },
