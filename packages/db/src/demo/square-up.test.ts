@@ -14,7 +14,7 @@ if (!baseUrl) throw new Error('DATABASE_URL is not set: run the tests through `n
 let scratch: Awaited<ReturnType<typeof createScratchDatabase>>;
 let h: DbHandle;
 
-interface PeriodRow {
+type PeriodRow = {
   id: string;
   operation_id: string;
   name: string;
@@ -22,7 +22,7 @@ interface PeriodRow {
   period_to: string;
   status: 'open' | 'closed';
   statement: SquareUpStatementDto | null;
-}
+};
 
 let periods: PeriodRow[];
 
