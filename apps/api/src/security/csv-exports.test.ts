@@ -54,6 +54,7 @@ describe('CSV exports', () => {
   it('are all covered here', () => {
     expect(csvRoutes().map((r) => r.path).sort()).toEqual(
       [
+        '/api/fields/export.csv',
         '/api/machines/:id/costs/export.csv',
         '/api/machines/export.csv',
         '/api/reports/custom-income.csv',

@@ -79,6 +79,7 @@ export const ROWS: Record<string, Row> = {
   'POST /api/machines/:id/meter-readings': { allow: LOGGERS, path: (w) => `/api/machines/${w.ids.machine}/meter-readings`, ok: 400 },
 
   'GET /api/fields': { allow: STAFF_READERS, path: () => '/api/fields', ok: 200 },
+  'GET /api/fields/export.csv': { allow: STAFF_READERS, path: () => '/api/fields/export.csv', ok: 200 },
   'GET /api/fields/:id': { allow: STAFF_READERS, path: (w) => `/api/fields/${w.ids.field}`, ok: 200 },
   'POST /api/fields': { allow: OWNER_PARTNER, path: () => '/api/fields', ok: 400 },
   'PATCH /api/fields/:id': { allow: OWNER_PARTNER, path: (w) => `/api/fields/${w.ids.field}`, ok: 400 },

@@ -1,4 +1,4 @@
-import { Body, Controller, Get, Inject, Param, Patch, Post, Query } from '@nestjs/common';
+import { Body, Controller, Get, Inject, Param, Patch, Post, Query, type StreamableFile } from '@nestjs/common';
 import type { Page } from '@hitchbook/shared/schemas/common';
 import {
   fieldCreateSchema,
@@ -23,6 +23,13 @@ export class FieldsController {
   @Get()
   list(@CurrentActor() actor: Actor, @Query(new ZodPipe(fieldListQuerySchema)) query: FieldListQuery): Promise<Page<FieldDto>> {
     return this.fields.list(actor, query);
+  }
+
+  // Declared before ':id' so the path is never read as an id.
+  @Roles('owner', 'partner', 'operator', 'bookkeeper')
+  @Get('export.csv')
+  exportCsv(@CurrentActor() actor: Actor, @Query(new ZodPipe(fieldListQuerySchema)) query: FieldListQuery): Promise<StreamableFile> {
+    return this.fields.exportCsv(actor, query);
   }
 
   @Roles('owner', 'partner', 'operator', 'bookkeeper')

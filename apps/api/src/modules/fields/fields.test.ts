@@ -111,6 +111,38 @@ describe('fields', () => {
     expect(roads.body.items.every((f: { kind: string }) => f.kind === 'roadside')).toBe(true);
   });
 
+  it('exports the filtered fields table as CSV in the table order, road stretches included, formula-like text neutralised', async () => {
+    const label = `Export ${Date.now()}`;
+    const landlord = fx.customers[0];
+    expect((await create(tokens.owner, { name: '=SUM(A1:A9)', acres: 12, farmLabel: label, ownerPartyId: landlord, notes: 'wet corner, "north" end' })).status).toBe(201);
+    expect((await create(tokens.owner, { name: 'Hollow 55', acres: 55, farmLabel: label })).status).toBe(201);
+    // 1 mile × 8.25 ft = 1 acre exactly (definitions of the mile and acre, NIST).
+    expect((await create(tokens.owner, { kind: 'roadside', name: 'Ditch 3', farmLabel: label, roadName: 'Quarry Road', roadFrom: 'CR 2', roadTo: 'Mill Lane', lengthMiles: 1, widthFt: '8.25' })).status).toBe(201);
+    const rows = (res: { text: string }) => res.text.replace(/^\uFEFF/, '').trim().split(/\r?\n/);
+    const url = (query: string) => `/api/fields/export.csv?farmLabel=${encodeURIComponent(label)}${query}`;
+
+    const all = await t.http().get(url('&sort=-acres')).set(bearer(tokens.owner));
+    expect(all.status).toBe(200);
+    expect(all.headers['content-type']).toContain('text/csv');
+    expect(all.headers['content-disposition']).toContain('attachment');
+    const [header, ...lines] = rows(all);
+    expect(header).toBe('name,kind,acres,boundary acres,owner,farm,road,from,to,length miles,width ft,archived,notes');
+    expect(lines).toHaveLength(3);
+    expect(lines[0]).toMatch(/^Hollow 55,field,55\.000,,,/);
+    expect(lines[1]).toMatch(/^'=SUM\(A1:A9\),field,12\.000,,Neighbour C[^,]*,Export \d+,,,,,,no,"wet corner, ""north"" end"$/);
+    expect(lines[2]).toMatch(/^Ditch 3,roadside,1\.000,,,Export \d+,Quarry Road,CR 2,Mill Lane,1\.000,8\.25,no,$/);
+
+    const roads = await t.http().get(url('&kind=roadside')).set(bearer(tokens.operator));
+    expect(rows(roads)).toHaveLength(2);
+    const owned = await t.http().get(url(`&ownerPartyId=${landlord}`)).set(bearer(tokens.bookkeeper));
+    expect(rows(owned).slice(1).map((l) => l.split(',')[0])).toEqual(["'=SUM(A1:A9)"]);
+    expect((await t.http().get(url('')).set(bearer(tokens.customer))).status).toBe(403);
+    expect((await t.http().get(url('&kind=orchard')).set(bearer(tokens.owner))).status).toBe(400);
+    // Another operation sees none of these fields, and a filter on this operation's party is not found for it.
+    expect(rows(await t.http().get(url('')).set(bearer(otherTokens.owner)))).toHaveLength(1);
+    expect((await t.http().get(url(`&ownerPartyId=${landlord}`)).set(bearer(otherTokens.owner))).status).toBe(404);
+  });
+
   it('archives instead of deleting: an old work entry keeps pointing at the field', async () => {
     const field = await create(tokens.owner, { name: 'Sold off', acres: 12 });
     const workType = await t.dbh.db.query.workTypes.findFirst({ where: (w, { and, eq }) => and(eq(w.operationId, fx.operationId), eq(w.key, 'disking')) });
