@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { ActionIcon, Anchor, Badge, Button, Group, SegmentedControl, Select, Stack, Text, Tooltip } from '@mantine/core';
-import { IconArchive, IconArchiveOff, IconPencil, IconPlus, IconRoad, IconX } from '@tabler/icons-react';
+import { notifications } from '@mantine/notifications';
+import { IconArchive, IconArchiveOff, IconDownload, IconPencil, IconPlus, IconRoad, IconX } from '@tabler/icons-react';
 import type { MRT_ColumnDef } from 'mantine-react-table';
 import { useMediaQuery } from '@mantine/hooks';
 import { Link } from 'react-router-dom';
@@ -13,6 +14,7 @@ import { useSessionUserOrThrow } from '../../../lib/auth';
 import { useListParams } from '../../../lib/listParams';
 import { formatDecimal } from '../../../lib/money';
 import { paths } from '../../../lib/paths';
+import { exportFields } from '../api/exportFields';
 import { useFields, type ArchivedFilter } from '../api/listFields';
 import { useLandowners } from '../api/listLandowners';
 import { ArchiveFieldModal } from '../components/ArchiveFieldModal';
@@ -167,6 +169,18 @@ export function Component() {
   const filtered = Boolean(params.q || kind || farmLabel || ownerPartyId || archived !== 'false');
   const phone = useMediaQuery('(max-width: 48em)') ?? false;
   const pickFarm = (label: string) => update({ farmLabel: label });
+  const [exporting, setExporting] = useState(false);
+
+  async function exportCsv() {
+    setExporting(true);
+    try {
+      await exportFields({ q: params.q, sort: params.sort, kind, farmLabel, ownerPartyId, archived });
+    } catch (error) {
+      notifications.show({ color: 'red', title: 'The export did not download', message: error instanceof Error ? error.message : '' });
+    } finally {
+      setExporting(false);
+    }
+  }
   const compactColumns: MRT_ColumnDef<FieldDto>[] = [
     {
       accessorKey: 'name',
@@ -223,16 +237,21 @@ export function Component() {
         title="Fields & road stretches"
         description="Where the work is done: fields with their acres and boundaries, and the road stretches mowed by the mile."
         actions={
-          canManage && (
-            <>
-              <Button component={Link} to={paths.newField()} leftSection={<IconPlus size={20} />}>
-                Add field
-              </Button>
-              <Button component={Link} to={paths.newField({ kind: 'roadside' })} variant="light" leftSection={<IconRoad size={20} />}>
-                Add road stretch
-              </Button>
-            </>
-          )
+          <Group gap="sm">
+            <Button variant="default" leftSection={<IconDownload size={20} />} loading={exporting} onClick={() => void exportCsv()}>
+              Export CSV{filtered ? ' of these fields' : ''}
+            </Button>
+            {canManage && (
+              <>
+                <Button component={Link} to={paths.newField()} leftSection={<IconPlus size={20} />}>
+                  Add field
+                </Button>
+                <Button component={Link} to={paths.newField({ kind: 'roadside' })} variant="light" leftSection={<IconRoad size={20} />}>
+                  Add road stretch
+                </Button>
+              </>
+            )}
+          </Group>
         }
       />
       <ServerTable
