@@ -14,6 +14,7 @@ import { useMachineSummary } from '../api/getMachineSummary';
 import { CostsPanel } from '../components/CostsPanel';
 import { MachineDetails } from '../components/MachineDetails';
 import { MachineEntriesPanel } from '../components/MachineEntriesPanel';
+import { MachinePhotoPanel } from '../components/MachinePhotoPanel';
 import { MeterPanel } from '../components/MeterPanel';
 import { OwnersPanel } from '../components/OwnersPanel';
 import { RatePanel } from '../components/RatePanel';
@@ -97,6 +98,7 @@ export function Component() {
         <MachineDetails machine={machine} showMoney={seesMoney} />
         <OwnersPanel machineId={machine.id} canManage={canManage} />
       </SimpleGrid>
+      <MachinePhotoPanel machine={machine} canManage={canManage} />
       <MeterPanel machineId={machine.id} readings={summary.data.meterHistory} canRecord={METER_READERS.has(user.role)} />
       {seesMoney && <RatePanel summary={summary.data} />}
       {seesMoney && <CostsPanel machineId={machine.id} canManage={canManage} ownPartyId={user.partyId ?? null} />}
