@@ -1,5 +1,6 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { fieldPhotoPng } from './photo.js';
 import { baseUrlOrThrow, DEMO_SIGN_INS, DESKTOP, inFreshPage, launchBrowser, PHONE, screenshot, signInAndWait } from './browser.js';
 
 let browser: Browser;
@@ -75,6 +76,31 @@ describe('machines', () => {
       expect(await page.getByRole('button', { name: 'Change shares' }).count()).toBe(0);
       expect(await page.getByRole('link', { name: 'Edit' }).count()).toBe(0);
       await screenshot(page, 'machine-operator-phone');
+    });
+  });
+
+  it('lets the owner put a photo on a machine, refusing what is not JPEG or PNG, and shows it to the operator', async () => {
+    await inFreshPage(browser, DESKTOP, 'machine-photo-owner', async ({ page }) => {
+      await signInAndWait(page, DEMO_SIGN_INS.owner);
+      await openMachine(page, '1000-bu grain cart');
+      const panel = page.getByTestId('machine-photo');
+      const input = panel.locator('input[type=file]');
+      await input.setInputFiles({ name: 'notes.txt', mimeType: 'text/plain', buffer: Buffer.from('not a photo') });
+      expect(await panel.getByRole('alert').textContent()).toBe('Only a JPEG or PNG photo can be used.');
+      await input.setInputFiles({ name: 'grain-cart.png', mimeType: 'image/png', buffer: fieldPhotoPng(480, 320) });
+      const photo = panel.getByRole('img', { name: 'Photo of 1000-bu grain cart' });
+      await photo.waitFor();
+      // The bytes came through the session-authenticated fetch, not a bare address to the upload.
+      expect(await photo.getAttribute('src')).toMatch(/^blob:/);
+      await page.waitForFunction(() => (document.querySelector('[data-testid="machine-photo"] img') as HTMLImageElement | null)?.naturalWidth === 480);
+      await screenshot(page, 'machine-photo-owner-desktop');
+    });
+    await inFreshPage(browser, PHONE, 'machine-photo-operator', async ({ page }) => {
+      await signInAndWait(page, DEMO_SIGN_INS.operator);
+      await openMachine(page, '1000-bu grain cart');
+      const panel = page.getByTestId('machine-photo');
+      await panel.getByRole('img', { name: 'Photo of 1000-bu grain cart' }).waitFor();
+      expect(await panel.locator('input[type=file]').count()).toBe(0);
     });
   });
 
