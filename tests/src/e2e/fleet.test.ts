@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { fieldPhotoPng } from './photo.js';
@@ -154,6 +155,22 @@ describe('fields', () => {
       await row.getByRole('button', { name: `Archive ${name}` }).click();
       await page.getByRole('dialog').getByRole('button', { name: 'Archive' }).click();
       await row.waitFor({ state: 'detached' });
+    });
+  });
+
+  it('exports the road stretches the table shows as CSV', async () => {
+    await inFreshPage(browser, DESKTOP, 'fields-export', async ({ page }) => {
+      await signInAndWait(page, DEMO_SIGN_INS.owner);
+      await page.goto(`${baseUrlOrThrow()}/fields?kind=roadside`);
+      const button = page.getByRole('button', { name: 'Export CSV of these fields' });
+      const [download] = await Promise.all([page.waitForEvent('download'), button.click()]);
+      expect(download.suggestedFilename()).toMatch(/^fields-\d{4}-\d{2}-\d{2}\.csv$/);
+      const text = readFileSync((await download.path())!, 'utf8').replace(/^\uFEFF/, '');
+      const [header, ...rows] = text.trim().split(/\r?\n/);
+      expect(header).toBe('name,kind,acres,boundary acres,owner,farm,road,from,to,length miles,width ft,archived,notes');
+      expect(rows.length).toBe(await page.locator('tbody tr').count());
+      expect(rows.length).toBeGreaterThan(0);
+      for (const row of rows) expect(row.split(',')[1]).toBe('roadside');
     });
   });
 
