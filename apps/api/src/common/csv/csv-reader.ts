@@ -70,10 +70,18 @@ function* utf8Chunks(buffer: Buffer): Generator<string> {
  * ever holding the whole file as one string. Row numbers count every record, blank ones included,
  * so they match the spreadsheet the file came from.
  */
-export function readCsvRecords(buffer: Buffer, onRecord: (cells: string[], row: number, parseErrors: string[]) => 'continue' | 'stop'): Promise<void> {
+export function readCsvRecords(
+  buffer: Buffer,
+  onRecord: (cells: string[], row: number, parseErrors: string[]) => 'continue' | 'stop' | Promise<'continue' | 'stop'>,
+): Promise<void> {
   return new Promise((resolve, reject) => {
     let row = 0;
     let failure: unknown = null;
+    let settled = false;
+    const fail = (err: unknown) => {
+      if (!settled) reject(err);
+      settled = true;
+    };
     const source = Readable.from(utf8Chunks(buffer));
     Papa.parse<string[]>(source as unknown as File, {
       header: false,
@@ -83,14 +91,33 @@ export function readCsvRecords(buffer: Buffer, onRecord: (cells: string[], row: 
         row += 1;
         try {
           const errors = results.errors.map((e) => e.message);
-          if (onRecord(results.data, row, errors) === 'stop') parser.abort();
+          const next = onRecord(results.data, row, errors);
+          if (typeof next === 'string') {
+            if (next === 'stop') parser.abort();
+            return;
+          }
+          // Asynchronous work on a record (a batch written) holds the parser, so unread records stay unread bytes.
+          parser.pause();
+          next.then(
+            (answer) => (answer === 'stop' ? parser.abort() : parser.resume()),
+            (err: unknown) => {
+              fail(err);
+              parser.abort();
+            },
+          );
         } catch (err) {
           failure = err;
           parser.abort();
         }
       },
-      complete: () => (failure ? reject(failure) : resolve()),
-      error: (err: unknown) => reject(err instanceof CsvFileError ? err : new CsvFileError('The file could not be read as CSV.')),
+      complete: () => {
+        if (failure) fail(failure);
+        else if (!settled) {
+          settled = true;
+          resolve();
+        }
+      },
+      error: (err: unknown) => fail(err instanceof CsvFileError ? err : new CsvFileError('The file could not be read as CSV.')),
     });
   });
 }
@@ -103,7 +130,7 @@ function isBlank(cells: readonly string[]): boolean {
  * Reads a CSV with a header row against the documented columns: unknown, repeated or missing
  * required headers fail the whole file; each data row comes with its own problems named.
  */
-export async function readCsvTable(buffer: Buffer, options: CsvTableOptions, onRow: (row: CsvDataRow) => void): Promise<{ rows: number }> {
+export async function readCsvTable(buffer: Buffer, options: CsvTableOptions, onRow: (row: CsvDataRow) => unknown): Promise<{ rows: number }> {
   const known = new Map(options.columns.map((c) => [headerKey(c.header), c.header]));
   let header: string[] | null = null;
   let dataRows = 0;
@@ -117,8 +144,9 @@ export async function readCsvTable(buffer: Buffer, options: CsvTableOptions, onR
     if (isBlank(cells)) return 'continue';
     dataRows += 1;
     if (dataRows > options.maxRows) throw new CsvFileError(`The file has more than ${options.maxRows} rows; split it into smaller files.`);
-    onRow(toDataRow(header, cells, row, parseErrors, options.maxFieldLength));
-    return 'continue';
+    const done = onRow(toDataRow(header, cells, row, parseErrors, options.maxFieldLength));
+    // A promise from onRow (a batch being written) holds the reading until it settles.
+    return done instanceof Promise ? done.then(() => 'continue' as const) : 'continue';
   });
 
   if (header === null) throw new CsvFileError('The file is empty: it needs a header row and at least one row of data.');
