@@ -1,10 +1,10 @@
-import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import Stripe from 'stripe';
 import { auditLog, checkoutSessions, paymentRefunds, payments, stripeEvents } from '@hitchbook/db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { addEntry, addNeighbourSheet, createBillingWorld, type BillingWorld } from '../modules/invoices/billing-world.fixture.js';
 import { createOperation, signInAll, type OperationFixture } from '../test-support/fixtures.js';
+import { completedSessionEvent, testStripeId } from '../test-support/stripe-events.js';
 import { TcpProxy } from '../test-support/tcp-proxy.js';
 import { createTestApp, type TestApp } from '../test-support/test-app.js';
 
@@ -22,7 +22,7 @@ let tokens: Awaited<ReturnType<typeof signInAll>>;
 let day = 0;
 let fakeUrl: string;
 const bearer = (token: string) => ({ Authorization: `Bearer ${token}` });
-const eventId = () => `evt_test_${randomUUID().replace(/-/g, '')}`;
+const eventId = () => testStripeId('evt');
 
 beforeAll(async () => {
   const url = process.env.STRIPE_FAKE_URL;
@@ -73,26 +73,6 @@ async function fakeEvent(type: string, objectId: string): Promise<Stripe.Event> 
   return stripe.events.retrieve(list.data[0]!.id);
 }
 
-function completed(session: { stripeSessionId: string; amountCents: number; operationId: string; invoiceId: string }, paymentIntent: string) {
-  return {
-    id: eventId(),
-    object: 'event',
-    type: 'checkout.session.completed',
-    created: Math.floor(Date.now() / 1000),
-    data: {
-      object: {
-        id: session.stripeSessionId,
-        object: 'checkout.session',
-        amount_total: session.amountCents,
-        currency: 'usd',
-        payment_status: 'paid',
-        status: 'complete',
-        payment_intent: paymentIntent,
-        metadata: { operationId: session.operationId, invoiceId: session.invoiceId },
-      },
-    },
-  };
-}
 
 describe('Stripe unreachable', () => {
   it('answers a clear 503 to the payer, writes nothing, and opens the checkout once Stripe is back', async () => {
@@ -121,18 +101,18 @@ describe('events out of order', () => {
     const invoiceId = await issuedInvoice();
     expect((await checkout(invoiceId)).status).toBe(200);
     const [session] = await sessionsOf(invoiceId);
-    const intent = `pi_test_${randomUUID().replace(/-/g, '')}`;
+    const intent = testStripeId('pi');
     const early = [
       { id: eventId(), object: 'event', type: 'payment_intent.created', created: Math.floor(Date.now() / 1000), data: { object: { id: intent, object: 'payment_intent', amount: 21000, currency: 'usd', status: 'requires_payment_method' } } },
       { id: eventId(), object: 'event', type: 'payment_intent.succeeded', created: Math.floor(Date.now() / 1000), data: { object: { id: intent, object: 'payment_intent', amount: 99999, currency: 'usd', status: 'succeeded', metadata: { invoiceId } } } },
-      { ...completed(session!, intent), type: 'checkout.session.async_payment_failed' },
+      { ...completedSessionEvent(session!, { payment_intent: intent }), type: 'checkout.session.async_payment_failed' },
     ];
     for (const e of early) expect((await deliver(e)).status).toBe(200);
     expect(await t.dbh.db.select().from(payments).where(eq(payments.invoiceId, invoiceId))).toEqual([]);
     expect(await standing(invoiceId)).toMatchObject({ state: 'issued', balance: '210.00' });
 
-    expect((await deliver(completed(session!, intent))).status).toBe(200);
-    expect((await deliver(completed(session!, intent))).status).toBe(200);
+    expect((await deliver(completedSessionEvent(session!, { payment_intent: intent }))).status).toBe(200);
+    expect((await deliver(completedSessionEvent(session!, { payment_intent: intent }))).status).toBe(200);
     const booked = await t.dbh.db.select().from(payments).where(eq(payments.invoiceId, invoiceId));
     expect(booked).toHaveLength(1);
     expect(booked[0]).toMatchObject({ amount: '210.00', stripePaymentIntentId: intent });
@@ -174,7 +154,7 @@ describe('events out of order', () => {
       object: 'event',
       type: 'refund.created',
       created: Math.floor(Date.now() / 1000),
-      data: { object: { id: `re_test_${randomUUID().replace(/-/g, '')}`, object: 'refund', amount: 5000, currency: 'usd', status: 'succeeded', payment_intent: 'pi_test_from_elsewhere', reason: null } },
+      data: { object: { id: testStripeId('re'), object: 'refund', amount: 5000, currency: 'usd', status: 'succeeded', payment_intent: 'pi_test_from_elsewhere', reason: null } },
     };
     expect((await deliver(refund)).status).toBe(200);
     const [recorded] = await t.dbh.db.select().from(stripeEvents).where(eq(stripeEvents.id, refund.id));

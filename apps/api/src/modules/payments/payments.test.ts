@@ -6,6 +6,7 @@ import { auditLog, checkoutSessions, invoices, parties, paymentRefunds, payments
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createOperation, signInAll, type OperationFixture } from '../../test-support/fixtures.js';
 import { waitForMail } from '../../test-support/mailbox.js';
+import { completedSessionEvent, testStripeId } from '../../test-support/stripe-events.js';
 import { createTestApp, type TestApp } from '../../test-support/test-app.js';
 import { addEntry, addNeighbourSheet, createBillingWorld, type BillingWorld } from '../invoices/billing-world.fixture.js';
 
@@ -67,30 +68,6 @@ function deliver(event: object, options: { secret?: string; timestamp?: number; 
     options.signature === undefined ? stripe.webhooks.generateTestHeaderString({ payload, secret: options.secret ?? webhookSecret, timestamp: options.timestamp }) : options.signature;
   const req = t.http().post('/api/payments/stripe-webhook').set('Content-Type', 'application/json');
   return (signature === null ? req : req.set('Stripe-Signature', signature)).send(options.body ?? payload);
-}
-
-/** A completed-session event as Stripe would send it for a stored session, with any field changed. */
-function completedEvent(session: { stripeSessionId: string; amountCents: number; operationId: string; invoiceId: string }, change: Record<string, unknown> = {}) {
-  return {
-    id: `evt_test_${randomUUID().replace(/-/g, '')}`,
-    object: 'event',
-    type: 'checkout.session.completed',
-    created: Math.floor(Date.now() / 1000),
-    livemode: false,
-    data: {
-      object: {
-        id: session.stripeSessionId,
-        object: 'checkout.session',
-        amount_total: session.amountCents,
-        currency: 'usd',
-        payment_status: 'paid',
-        status: 'complete',
-        payment_intent: `pi_test_${randomUUID().replace(/-/g, '')}`,
-        metadata: { operationId: session.operationId, invoiceId: session.invoiceId },
-        ...change,
-      },
-    },
-  };
 }
 
 async function fakeEvent(type: string, objectId: string): Promise<Stripe.Event> {
@@ -195,7 +172,7 @@ describe('the Stripe webhook', () => {
   it('refuses a forged, unsigned, stale or re-serialised event with 400 and changes nothing', async () => {
     const invoice = await issuedInvoice();
     await checkout(invoice.id);
-    const event = completedEvent(await storedSession(invoice.id));
+    const event = completedSessionEvent(await storedSession(invoice.id));
 
     const forged = await deliver(event, { secret: 'whsec_not_the_endpoint_secret' });
     expect(forged.status).toBe(400);
@@ -215,11 +192,11 @@ describe('the Stripe webhook', () => {
     const invoice = await issuedInvoice();
     await checkout(invoice.id);
     const session = await storedSession(invoice.id);
-    const event = completedEvent(session);
+    const event = completedSessionEvent(session);
     const deliveries = await Promise.all([deliver(event), deliver(event), deliver(event)]);
     expect(deliveries.map((d) => d.status)).toEqual([200, 200, 200]);
     // Another event about the same payment (a second event id) books nothing either.
-    const sameIntent = { ...event, id: `evt_test_${randomUUID().replace(/-/g, '')}` };
+    const sameIntent = { ...event, id: testStripeId('evt') };
     expect((await deliver(sameIntent)).status).toBe(200);
 
     expect(await paymentsOf(invoice.id)).toHaveLength(1);
@@ -234,10 +211,10 @@ describe('the Stripe webhook', () => {
     await checkout(invoice.id);
     const session = await storedSession(invoice.id);
     const tampered = [
-      completedEvent(session, { amount_total: 100 }),
-      completedEvent(session, { currency: 'eur' }),
-      completedEvent(session, { metadata: { operationId: session.operationId, invoiceId: other.id } }),
-      completedEvent({ ...session, stripeSessionId: 'cs_test_never_opened_here' }),
+      completedSessionEvent(session, { amount_total: 100 }),
+      completedSessionEvent(session, { currency: 'eur' }),
+      completedSessionEvent(session, { metadata: { operationId: session.operationId, invoiceId: other.id } }),
+      completedSessionEvent({ ...session, stripeSessionId: 'cs_test_never_opened_here' }),
     ];
     for (const event of tampered) expect((await deliver(event)).status).toBe(200);
 
@@ -254,9 +231,9 @@ describe('the Stripe webhook', () => {
     const invoice = await issuedInvoice();
     await checkout(invoice.id);
     const session = await storedSession(invoice.id);
-    const failedFirst = { id: `evt_test_${randomUUID().replace(/-/g, '')}`, object: 'event', type: 'payment_intent.payment_failed', created: Math.floor(Date.now() / 1000), data: { object: { id: 'pi_test_x', object: 'payment_intent', last_payment_error: { message: 'Your card was declined.' } } } };
-    const expiredLate = { ...completedEvent(session, { status: 'expired', payment_status: 'unpaid' }), type: 'checkout.session.expired' };
-    for (const event of [failedFirst, completedEvent(session), expiredLate]) expect((await deliver(event)).status).toBe(200);
+    const failedFirst = { id: testStripeId('evt'), object: 'event', type: 'payment_intent.payment_failed', created: Math.floor(Date.now() / 1000), data: { object: { id: 'pi_test_x', object: 'payment_intent', last_payment_error: { message: 'Your card was declined.' } } } };
+    const expiredLate = { ...completedSessionEvent(session, { status: 'expired', payment_status: 'unpaid' }), type: 'checkout.session.expired' };
+    for (const event of [failedFirst, completedSessionEvent(session), expiredLate]) expect((await deliver(event)).status).toBe(200);
     expect(await standing(invoice.id)).toMatchObject({ state: 'paid' });
     expect((await storedSession(invoice.id)).status).toBe('complete');
   });
@@ -422,7 +399,7 @@ describe('refunds of card payments', () => {
     expect(forged.status).toBe(400);
     expect(await standing(invoice.id)).toMatchObject({ state: 'paid' });
 
-    const copies = await Promise.all([deliver(event), deliver(event), deliver({ ...event, id: `evt_test_${randomUUID().replace(/-/g, '')}` })]);
+    const copies = await Promise.all([deliver(event), deliver(event), deliver({ ...event, id: testStripeId('evt') })]);
     expect(copies.map((c) => c.status)).toEqual([200, 200, 200]);
     expect(await t.dbh.db.select().from(paymentRefunds).where(eq(paymentRefunds.paymentId, payment.id))).toHaveLength(1);
     expect((await paymentsOf(invoice.id))[0]).toMatchObject({ amountRefunded: '50.00', status: 'succeeded' });
