@@ -24,6 +24,34 @@ export function baseUrlOrThrow(): string {
   return url.replace(/\/$/, '');
 }
 
+/** Today's date on this machine, as the cab form prefills it (yyyy-mm-dd). */
+export function todayIso(): string {
+  const d = new Date();
+  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
+}
+
+/** An access token for a demo sign-in, for setting up and checking through the API beside the browser. */
+export async function apiToken(email: string, password = DEMO_PASSWORD): Promise<string> {
+  const res = await fetch(`${baseUrlOrThrow()}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ email, password }),
+  });
+  if (res.status !== 200) throw new Error(`sign-in of ${email} answered ${res.status}: ${await res.text()}`);
+  return ((await res.json()) as { accessToken: string }).accessToken;
+}
+
+/** One API call with a token; anything but a 2xx fails the test with the server's answer. */
+export async function apiCall<T>(token: string, method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<T> {
+  const res = await fetch(`${baseUrlOrThrow()}${path}`, {
+    method,
+    headers: { Authorization: `Bearer ${token}`, ...(body === undefined ? {} : { 'Content-Type': 'application/json' }), ...headers },
+    body: body === undefined ? undefined : JSON.stringify(body),
+  });
+  if (!res.ok) throw new Error(`${method} ${path} answered ${res.status}: ${await res.text()}`);
+  return (await res.json()) as T;
+}
+
 export function launchBrowser(): Promise<Browser> {
   return chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',

@@ -2,7 +2,7 @@ import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Dec } from '@hitchbook/shared/decimal';
 import { formatMoney } from '@hitchbook/shared/money';
-import { baseUrlOrThrow, DEMO_PASSWORD, DEMO_SIGN_INS, DESKTOP, inFreshPage, launchBrowser, navigationLabels, PHONE, screenshot, signInAndWait } from './browser.js';
+import { apiCall, apiToken, baseUrlOrThrow, DEMO_SIGN_INS, DESKTOP, inFreshPage, launchBrowser, navigationLabels, PHONE, screenshot, signInAndWait } from './browser.js';
 
 interface InvoiceJson {
   id: string;
@@ -14,42 +14,22 @@ interface InvoiceJson {
   balance: string;
 }
 
-async function tokenOf(email: string): Promise<string> {
-  const res = await fetch(`${baseUrlOrThrow()}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json' },
-    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
-  });
-  expect(res.status).toBe(200);
-  return ((await res.json()) as { accessToken: string }).accessToken;
-}
-
-async function call<T>(token: string, method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<T> {
-  const res = await fetch(`${baseUrlOrThrow()}${path}`, {
-    method,
-    headers: { Authorization: `Bearer ${token}`, ...(body === undefined ? {} : { 'Content-Type': 'application/json' }), ...headers },
-    body: body === undefined ? undefined : JSON.stringify(body),
-  });
-  expect(res.status, `${method} ${path}`).toBeLessThan(300);
-  return (await res.json()) as T;
-}
-
 /**
  * An invoice customer@ still owes on. The demo issues one; should another scenario have paid it,
  * the owner issues one more from the neighbour's next unbilled day of work.
  */
 async function openInvoiceOfCustomer(): Promise<InvoiceJson> {
-  const customer = await tokenOf(DEMO_SIGN_INS.customer);
-  const mine = await call<{ items: InvoiceJson[] }>(customer, 'GET', '/api/invoices?state=issued,overdue,partly-paid&pageSize=50');
+  const customer = await apiToken(DEMO_SIGN_INS.customer);
+  const mine = await apiCall<{ items: InvoiceJson[] }>(customer, 'GET', '/api/invoices?state=issued,overdue,partly-paid&pageSize=50');
   const open = mine.items.find((i) => i.kind === 'invoice' && new Dec(i.balance).gt(0));
   if (open) return open;
-  const owner = await tokenOf(DEMO_SIGN_INS.owner);
-  const partyId = (await call<{ partyId: string }>(customer, 'GET', '/api/auth/me')).partyId;
-  const entries = await call<{ items: Array<{ workDate: string }> }>(owner, 'GET', `/api/work-entries?billToPartyId=${partyId}&state=approved&sort=date&pageSize=1`);
+  const owner = await apiToken(DEMO_SIGN_INS.owner);
+  const partyId = (await apiCall<{ partyId: string }>(customer, 'GET', '/api/auth/me')).partyId;
+  const entries = await apiCall<{ items: Array<{ workDate: string }> }>(owner, 'GET', `/api/work-entries?billToPartyId=${partyId}&state=approved&sort=date&pageSize=1`);
   const day = entries.items[0]?.workDate;
   if (!day) throw new Error('customer@ has no open invoice and no approved work left to bill');
-  const draft = await call<{ id: string; version: number }>(owner, 'POST', '/api/invoices/drafts', { partyId, from: day, to: day });
-  return call<InvoiceJson>(owner, 'POST', `/api/invoices/${draft.id}/issue`, { version: draft.version }, { 'Idempotency-Key': crypto.randomUUID() });
+  const draft = await apiCall<{ id: string; version: number }>(owner, 'POST', '/api/invoices/drafts', { partyId, from: day, to: day });
+  return apiCall<InvoiceJson>(owner, 'POST', `/api/invoices/${draft.id}/issue`, { version: draft.version }, { 'Idempotency-Key': crypto.randomUUID() });
 }
 
 let browser: Browser;
@@ -64,7 +44,7 @@ afterAll(async () => {
 
 describe("the customer's own view", () => {
   it('lists only their own invoices and keeps the rest of the operation out of sight', async () => {
-    const otherCustomers = await call<{ items: InvoiceJson[] }>(await tokenOf(DEMO_SIGN_INS.customer2), 'GET', '/api/invoices');
+    const otherCustomers = await apiCall<{ items: InvoiceJson[] }>(await apiToken(DEMO_SIGN_INS.customer2), 'GET', '/api/invoices');
     const theirs = otherCustomers.items[0];
     if (!theirs) throw new Error('customer2@ has no invoice in the demo');
 
@@ -111,7 +91,7 @@ describe("the customer's own view", () => {
       expect(await page.getByRole('button', { name: 'Try again' }).count()).toBe(1);
       await screenshot(page, 'card-declined-customer-phone');
     });
-    const after = await call<InvoiceJson>(await tokenOf(DEMO_SIGN_INS.owner), 'GET', `/api/invoices/${invoice.id}`);
+    const after = await apiCall<InvoiceJson>(await apiToken(DEMO_SIGN_INS.owner), 'GET', `/api/invoices/${invoice.id}`);
     expect(after).toMatchObject({ balance: invoice.balance, state: invoice.state });
   }, 120_000);
 });

@@ -1,7 +1,7 @@
 import type { Browser, Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { fieldPhotoPng } from './photo.js';
-import { baseUrlOrThrow, DEMO_PASSWORD, DEMO_SIGN_INS, DESKTOP, inFreshPage, launchBrowser, PHONE, screenshot, signInAndWait } from './browser.js';
+import { apiCall, apiToken, baseUrlOrThrow, DEMO_SIGN_INS, DESKTOP, inFreshPage, launchBrowser, PHONE, screenshot, signInAndWait, todayIso } from './browser.js';
 
 let browser: Browser;
 
@@ -17,31 +17,6 @@ afterAll(async () => {
 async function pick(page: Page, input: Locator, label: string) {
   await input.click();
   await page.getByRole('option', { name: new RegExp(`^${label.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}`) }).first().click();
-}
-
-function todayIso(): string {
-  const d = new Date();
-  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
-}
-
-async function apiToken(email: string): Promise<string> {
-  const res = await fetch(`${baseUrlOrThrow()}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json' },
-    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
-  });
-  expect(res.status).toBe(200);
-  return ((await res.json()) as { accessToken: string }).accessToken;
-}
-
-async function apiCall<T>(token: string, method: string, path: string, body?: unknown): Promise<T> {
-  const res = await fetch(`${baseUrlOrThrow()}${path}`, {
-    method,
-    headers: { Authorization: `Bearer ${token}`, ...(body ? { 'Content-Type': 'application/json' } : {}) },
-    body: body ? JSON.stringify(body) : undefined,
-  });
-  if (!res.ok) throw new Error(`${method} ${path} answered ${res.status}: ${await res.text()}`);
-  return (await res.json()) as T;
 }
 
 interface Named {
