@@ -10,3 +10,4 @@ export * from './work.js';
 export * from './rates.js';
 export * from './invoices.js';
 export * from './square-ups.js';
+export * from './work-sums.js';
