@@ -91,8 +91,33 @@ export const workEntries = pgTable(
     index('work_entries_operation_state_date_idx').on(t.operationId, t.state, t.workDate),
     index('work_entries_operation_bill_to_state_idx').on(t.operationId, t.billToPartyId, t.state, t.workDate),
     index('work_entries_operation_field_date_idx').on(t.operationId, t.fieldId, t.workDate),
-    index('work_entries_operation_power_date_idx').on(t.operationId, t.powerMachineId, t.workDate),
-    index('work_entries_operation_implement_date_idx').on(t.operationId, t.implementMachineId, t.workDate),
+    // A machine's entries in the table's default order: a page of them is read off the index, not sorted.
+    // The trailing columns (after the unique id, so they do not change the order) let the totals and the
+    // power-or-implement split be answered from the index alone.
+    index('work_entries_operation_power_recent_idx').on(
+      t.operationId,
+      t.powerMachineId,
+      t.workDate.desc().nullsLast(),
+      t.startedAt.desc().nullsLast(),
+      t.createdAt.desc().nullsLast(),
+      t.id,
+      t.implementMachineId,
+      t.hours,
+      t.acres,
+      t.miles,
+    ),
+    index('work_entries_operation_implement_recent_idx').on(
+      t.operationId,
+      t.implementMachineId,
+      t.workDate.desc().nullsLast(),
+      t.startedAt.desc().nullsLast(),
+      t.createdAt.desc().nullsLast(),
+      t.id,
+      t.powerMachineId,
+      t.hours,
+      t.acres,
+      t.miles,
+    ),
     index('work_entries_operation_operator_date_idx').on(t.operationId, t.operatorUserId, t.workDate),
     index('work_entries_operation_work_type_date_idx').on(t.operationId, t.workTypeId, t.workDate),
     // The table's default order (newest first, the same tie-breaks): a page is read off the index, not sorted.

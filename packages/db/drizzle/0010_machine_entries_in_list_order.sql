@@ -1,0 +1,4 @@
+DROP INDEX "work_entries_operation_power_date_idx";--> statement-breakpoint
+DROP INDEX "work_entries_operation_implement_date_idx";--> statement-breakpoint
+CREATE INDEX "work_entries_operation_power_recent_idx" ON "work_entries" USING btree ("operation_id","power_machine_id","work_date" DESC NULLS LAST,"started_at" DESC NULLS LAST,"created_at" DESC NULLS LAST,"id","implement_machine_id","hours","acres","miles");--> statement-breakpoint
+CREATE INDEX "work_entries_operation_implement_recent_idx" ON "work_entries" USING btree ("operation_id","implement_machine_id","work_date" DESC NULLS LAST,"started_at" DESC NULLS LAST,"created_at" DESC NULLS LAST,"id","power_machine_id","hours","acres","miles");
