@@ -1,4 +1,5 @@
 import Papa from 'papaparse';
+import { sql } from 'drizzle-orm';
 import { workEntries, type NewWorkEntry } from '@hitchbook/db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createOperation, signInAll, type OperationFixture } from '../../test-support/fixtures.js';
@@ -121,6 +122,110 @@ describe('work-entries table', () => {
     const [token] = Object.values(await signInAll(t, other));
     const body = await list('', token);
     expect(body.total).toBe(0);
+  });
+});
+
+describe('work-entries table filtered by a machine that is a power unit on some entries and an implement on others', () => {
+  let other: OperationFixture;
+  let otherFleet: FleetFixture;
+  let token: string;
+  let stored: Array<{ id: string; workDate: string; startedAt: Date | null; hours: string; acres: string | null; miles: string | null; state: string; fieldName: string }>;
+
+  // The same machine in either column, once in both; ties on the date are broken by the start time.
+  beforeAll(async () => {
+    other = await createOperation(t.dbh.db, 'Shared tractor');
+    otherFleet = await createFleet(t.dbh.db, other);
+    token = (await signInAll(t, other)).bookkeeper;
+    const m = otherFleet.tractor;
+    const base = { operationId: other.operationId, createdBy: other.members.owner.userId, operatorUserId: other.members.operator.userId, workTypeId: otherFleet.mowing, billToPartyId: other.households[0] };
+    const at = (iso: string) => new Date(iso);
+    const rows: Array<Omit<NewWorkEntry, 'operationId' | 'operatorUserId' | 'workTypeId' | 'billToPartyId'>> = [
+      { workDate: '2025-04-01', fieldId: otherFleet.home40, powerMachineId: m, hours: '1.00', acres: '5.000', state: 'approved' },
+      { workDate: '2025-04-03', fieldId: otherFleet.creek80, powerMachineId: otherFleet.windrower, implementMachineId: m, hours: '2.00', acres: '6.000', state: 'submitted' },
+      { workDate: '2025-04-03', fieldId: otherFleet.home40, powerMachineId: m, implementMachineId: otherFleet.cutter, hours: '3.50', acres: '7.000', startedAt: at('2025-04-03T08:00:00Z'), state: 'approved' },
+      { workDate: '2025-04-03', fieldId: otherFleet.townshipRoad, implementMachineId: m, hours: '0.75', acres: '2.000', miles: '2.000', startedAt: at('2025-04-03T13:00:00Z'), state: 'draft' },
+      { workDate: '2025-05-20', fieldId: otherFleet.creek80, powerMachineId: m, implementMachineId: m, hours: '4.25', acres: '8.500', state: 'approved' },
+      { workDate: '2025-06-02', fieldId: otherFleet.home40, implementMachineId: m, hours: '5.00', acres: '9.000', state: 'approved' },
+      { workDate: '2025-07-09', fieldId: otherFleet.creek80, powerMachineId: m, hours: '6.10', acres: '10.000', state: 'submitted' },
+      { workDate: '2024-12-30', fieldId: otherFleet.home40, powerMachineId: m, hours: '2.20', acres: '1.000', state: 'approved' },
+      // Not the machine's work: never listed nor totalled.
+      { workDate: '2025-05-01', fieldId: otherFleet.home40, powerMachineId: otherFleet.windrower, implementMachineId: otherFleet.disk, hours: '9.00', acres: '99.000', state: 'approved' },
+      { workDate: '2025-05-02', fieldId: otherFleet.creek80, hours: '8.00', acres: '88.000', state: 'approved' },
+    ];
+    await t.dbh.db.insert(workEntries).values(rows.map((r) => ({ ...base, ...r })));
+    const found = await t.dbh.db.execute<{ id: string; work_date: string; started_at: string | null; hours: string; acres: string | null; miles: string | null; state: string; field_name: string }>(sql`
+      select e.id, e.work_date::text as work_date, e.started_at, e.hours::text as hours, e.acres::text as acres, e.miles::text as miles, e.state, f.name as field_name
+      from work_entries e join fields f on f.id = e.field_id
+      where e.operation_id = ${other.operationId} and (e.power_machine_id = ${m} or e.implement_machine_id = ${m})`);
+    stored = found.rows.map((r) => ({ id: r.id, workDate: r.work_date, startedAt: r.started_at ? new Date(r.started_at) : null, hours: r.hours, acres: r.acres, miles: r.miles, state: r.state, fieldName: r.field_name }));
+  });
+
+  const byDateDesc = (a: (typeof stored)[number], b: (typeof stored)[number]) =>
+    b.workDate.localeCompare(a.workDate) || (a.startedAt && b.startedAt ? b.startedAt.getTime() - a.startedAt.getTime() : a.startedAt ? -1 : b.startedAt ? 1 : 0) || (a.id < b.id ? -1 : 1);
+
+  async function pages(query: string, pageSize: number) {
+    const first = await list(`${query}&pageSize=${pageSize}&page=1`, token);
+    const all = [...first.items];
+    for (let page = 2; page <= Math.ceil(first.total / pageSize) + 1; page++) {
+      const next = await list(`${query}&pageSize=${pageSize}&page=${page}`, token);
+      expect(next.total).toBe(first.total);
+      expect(next.totals).toEqual(first.totals);
+      all.push(...next.items);
+    }
+    return { first, ids: all.map((i) => i.id) };
+  }
+
+  it('lists each entry once, in date order across both columns, page after page', async () => {
+    const inYear = stored.filter((e) => e.workDate >= '2025-01-01' && e.workDate <= '2025-12-31');
+    const { first, ids } = await pages(`?machineId=${otherFleet.tractor}&dateFrom=2025-01-01&dateTo=2025-12-31&sort=-date`, 2);
+    expect(first.total).toBe(7);
+    expect(ids).toEqual([...inYear].sort(byDateDesc).map((e) => e.id));
+    expect(first.items[0]).toMatchObject({ fieldName: 'Creek 80', powerMachineName: 'Red 7120', implementMachineName: null, workTypeName: 'Mowing (rotary)', billToName: expect.stringMatching(/^Household A /) });
+  });
+
+  it('gives the same rows in the reverse order sorted oldest first, and an empty page past the end', async () => {
+    const { ids } = await pages(`?machineId=${otherFleet.tractor}&sort=date`, 3);
+    const newest = await pages(`?machineId=${otherFleet.tractor}&sort=-date`, 3);
+    expect(new Set(ids)).toEqual(new Set(stored.map((e) => e.id)));
+    expect(ids[0]).toBe(stored.find((e) => e.workDate === '2024-12-30')!.id);
+    expect(newest.ids).toEqual([...stored].sort(byDateDesc).map((e) => e.id));
+    const past = await list(`?machineId=${otherFleet.tractor}&pageSize=3&page=9`, token);
+    expect(past).toMatchObject({ items: [], total: 8, page: 9 });
+  });
+
+  it.each([
+    ['-hours', (a: (typeof stored)[number], b: (typeof stored)[number]) => Number(b.hours) - Number(a.hours)],
+    ['field', (a: (typeof stored)[number], b: (typeof stored)[number]) => a.fieldName.localeCompare(b.fieldName) || (a.id < b.id ? -1 : 1)],
+  ])('keeps the order sorted by %s across pages', async (sort, compare) => {
+    const { ids } = await pages(`?machineId=${otherFleet.tractor}&sort=${sort}`, 2);
+    expect(ids).toEqual([...stored].sort(compare).map((e) => e.id));
+  });
+
+  it('totals equal the sums over the entries that name the machine in either column', async () => {
+    const [direct] = (
+      await t.dbh.db.execute<{ n: number; hours: string; acres: string; miles: string }>(sql`
+        select count(*)::int as n, sum(hours)::numeric(14,2)::text as hours, sum(acres)::numeric(16,3)::text as acres, coalesce(sum(miles), 0)::numeric(14,3)::text as miles
+        from work_entries where operation_id = ${other.operationId} and work_date between '2025-01-01' and '2025-12-31'
+          and (power_machine_id = ${otherFleet.tractor} or implement_machine_id = ${otherFleet.tractor}) and state in ('approved', 'submitted')`)
+    ).rows;
+    const body = await list(`?machineId=${otherFleet.tractor}&dateFrom=2025-01-01&dateTo=2025-12-31&state=approved,submitted&pageSize=2&page=2`, token);
+    expect(direct!.n).toBe(6);
+    expect(body.total).toBe(direct!.n);
+    expect(body.totals).toEqual({ hours: direct!.hours, acres: direct!.acres, miles: direct!.miles });
+    expect(body.totals).toEqual({ hours: '21.85', acres: '45.500', miles: '0.000' });
+  });
+
+  it('shows an operator only their own entries of the machine', async () => {
+    const { operator } = await signInAll(t, other);
+    const body = await list(`?machineId=${otherFleet.tractor}`, operator);
+    expect(body.total).toBe(8);
+    const partnerView = await list(`?machineId=${otherFleet.tractor}&operatorUserId=${other.members.partner.userId}`, token);
+    expect(partnerView.total).toBe(0);
+  });
+
+  it("finds nothing through another operation's machine", async () => {
+    const body = await list(`?machineId=${otherFleet.tractor}`, tokens.bookkeeper);
+    expect(body).toMatchObject({ items: [], total: 0, totals: { hours: '0.00', acres: '0.000', miles: '0.000' } });
   });
 });
 

@@ -1,9 +1,10 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, eq, gte, inArray, lte, ne, or, sql, type SQL, type SQLWrapper } from 'drizzle-orm';
+import { and, eq, gte, inArray, lte, ne, or, sql, type SQL, type SQLWrapper } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import { fields, invoiceEntries, machines, meterReadings, parties, users, workEntries, workTypes, type Executor, type NewWorkEntry, type WorkEntry } from '@hitchbook/db';
 import type { WorkEntryFilter } from '@hitchbook/shared/schemas/work-entries';
 import { DB, type DbHandle } from '../../core/database.js';
+import { runPrepared } from '../../core/prepared.js';
 
 const powerMachines = alias(machines, 'power_machines');
 const implementMachines = alias(machines, 'implement_machines');
@@ -44,24 +45,63 @@ export interface ListWindow {
 
 const STATE_ORDER = sql`case ${workEntries.state} when 'draft' then 1 when 'submitted' then 2 when 'approved' then 3 when 'invoiced' then 4 else 5 end`;
 
-function sortOf(sort: string): SQL[] {
-  const descending = sort.startsWith('-');
-  const dir = (expr: SQLWrapper) => (descending ? sql`${expr} desc nulls last` : sql`${expr} asc nulls last`);
+interface SortKey {
+  expr: SQLWrapper;
+  dir: SQL;
+}
+
+const ASC = sql.raw('asc nulls last');
+const DESC = sql.raw('desc nulls last');
+
+/** The list's order, ending with the id so that pages never overlap. */
+function sortKeysOf(sort: string): SortKey[] {
+  const dir = sort.startsWith('-') ? DESC : ASC;
+  const keys = ((): SortKey[] => {
+    switch (sort.replace(/^-/, '')) {
+      case 'hours':
+        return [{ expr: workEntries.hours, dir }];
+      case 'acres':
+        return [{ expr: workEntries.acres, dir }];
+      case 'field':
+        return [{ expr: fields.name, dir }];
+      case 'machine':
+        return [{ expr: sql`coalesce(${powerMachines.name}, ${implementMachines.name})`, dir }, { expr: implementMachines.name, dir }];
+      case 'operator':
+        return [{ expr: users.name, dir }];
+      case 'state':
+        return [{ expr: STATE_ORDER, dir }];
+      default:
+        // A work date is never null, so where nulls go changes nothing for it; spelt this way both
+        // directions follow the date-ordered indexes (read forward or backward) instead of sorting
+        // every matching entry.
+        return [
+          { expr: workEntries.workDate, dir: dir === DESC ? DESC : sql.raw('asc nulls first') },
+          { expr: workEntries.startedAt, dir },
+          { expr: workEntries.createdAt, dir },
+        ];
+    }
+  })();
+  return [...keys, { expr: workEntries.id, dir: sql.raw('asc') }];
+}
+
+function orderOf(keys: SortKey[]): SQL {
+  return sql.join(
+    keys.map((k) => sql`${k.expr} ${k.dir}`),
+    sql`, `,
+  );
+}
+
+/** The names a sort orders by come from these tables; the other names are looked up for the page only. */
+function sortJoinsOf(sort: string): SQL {
   switch (sort.replace(/^-/, '')) {
-    case 'hours':
-      return [dir(workEntries.hours)];
-    case 'acres':
-      return [dir(workEntries.acres)];
     case 'field':
-      return [dir(fields.name)];
-    case 'machine':
-      return [dir(sql`coalesce(${powerMachines.name}, ${implementMachines.name})`), dir(implementMachines.name)];
+      return sql` inner join ${fields} on ${and(eq(fields.operationId, workEntries.operationId), eq(fields.id, workEntries.fieldId))}`;
     case 'operator':
-      return [dir(users.name)];
-    case 'state':
-      return [dir(STATE_ORDER)];
+      return sql` inner join ${users} on ${eq(users.id, workEntries.operatorUserId)}`;
+    case 'machine':
+      return sql` left join ${machines} ${powerMachines} on ${and(eq(powerMachines.operationId, workEntries.operationId), eq(powerMachines.id, workEntries.powerMachineId))} left join ${machines} ${implementMachines} on ${and(eq(implementMachines.operationId, workEntries.operationId), eq(implementMachines.id, workEntries.implementMachineId))}`;
     default:
-      return [dir(workEntries.workDate), dir(workEntries.startedAt), dir(workEntries.createdAt)];
+      return sql``;
   }
 }
 
@@ -80,6 +120,58 @@ function whereOf(operationId: string, filter: Omit<WorkEntryFilter, 'sort'>, sco
     filter.state ? inArray(workEntries.state, filter.state) : undefined,
   )!;
 }
+
+/**
+ * An entry matches a machine as its power unit or as its implement. Each is a separate branch, read
+ * from its own machine-ordered index; the implement branch leaves out entries the power branch has.
+ */
+function machineBranches(machineId: string): [SQL, SQL] {
+  return [
+    eq(workEntries.powerMachineId, machineId),
+    sql`${workEntries.implementMachineId} = ${machineId} and ${workEntries.powerMachineId} is distinct from ${machineId}`,
+  ];
+}
+
+/** The ids of one page in the list's order. */
+function pageIds(operationId: string, filter: WorkEntryFilter, scope: ListScope, window: ListWindow): SQL {
+  const keys = sortKeysOf(filter.sort);
+  const from = sql`${workEntries}${sortJoinsOf(filter.sort)}`;
+  if (!filter.machineId) {
+    return sql`select ${workEntries.id} from ${from} where ${whereOf(operationId, filter, scope)} order by ${orderOf(keys)} limit ${window.limit} offset ${window.offset}`;
+  }
+  // Each branch stops after the rows the page can reach; the page is then cut from the two merged.
+  const others = whereOf(operationId, { ...filter, machineId: undefined }, scope);
+  const columns = sql.join(
+    keys.map((k, i) => sql`${k.expr} as ${sql.identifier(`k${i}`)}`),
+    sql`, `,
+  );
+  const branches = machineBranches(filter.machineId).map(
+    (machine) => sql`(select ${columns} from ${from} where ${others} and ${machine} order by ${orderOf(keys)} limit ${window.offset + window.limit})`,
+  );
+  const merged = keys.map((k, i) => ({ expr: sql`branch.${sql.identifier(`k${i}`)}`, dir: k.dir }));
+  return sql`select ${merged.at(-1)!.expr} from (${sql.join(branches, sql` union all `)}) as branch order by ${orderOf(merged)} limit ${window.limit} offset ${window.offset}`;
+}
+
+/** The quantities of every matching entry, for the totals; with a machine, the union of its two branches. */
+function matchingQuantities(operationId: string, filter: WorkEntryFilter, scope: ListScope): SQL {
+  const quantities = sql`select ${workEntries.hours}, ${workEntries.acres}, ${workEntries.miles} from ${workEntries}`;
+  if (!filter.machineId) return sql`${quantities} where ${whereOf(operationId, filter, scope)}`;
+  const others = whereOf(operationId, { ...filter, machineId: undefined }, scope);
+  return sql.join(
+    machineBranches(filter.machineId).map((machine) => sql`${quantities} where ${others} and ${machine}`),
+    sql` union all `,
+  );
+}
+
+/** Names of a page's rows, one small lookup each, done after the page is cut. */
+const pageNames = {
+  fieldName: sql<string>`(select ${fields.name} from ${fields} where ${fields.operationId} = ${workEntries.operationId} and ${fields.id} = ${workEntries.fieldId})`,
+  workTypeName: sql<string>`(select ${workTypes.name} from ${workTypes} where ${workTypes.operationId} = ${workEntries.operationId} and ${workTypes.id} = ${workEntries.workTypeId})`,
+  powerMachineName: sql<string | null>`(select ${powerMachines.name} from ${machines} ${powerMachines} where ${powerMachines.operationId} = ${workEntries.operationId} and ${powerMachines.id} = ${workEntries.powerMachineId})`,
+  implementMachineName: sql<string | null>`(select ${implementMachines.name} from ${machines} ${implementMachines} where ${implementMachines.operationId} = ${workEntries.operationId} and ${implementMachines.id} = ${workEntries.implementMachineId})`,
+  operatorName: sql<string>`(select ${users.name} from ${users} where ${users.id} = ${workEntries.operatorUserId})`,
+  billToName: sql<string>`(select ${parties.name} from ${parties} where ${parties.operationId} = ${workEntries.operationId} and ${parties.id} = ${workEntries.billToPartyId})`,
+};
 
 /** Every query is scoped by the operation id passed first. */
 @Injectable()
@@ -208,23 +300,32 @@ export class WorkEntriesRepository {
       );
   }
 
+  /**
+   * A page of the table and its totals. The page's ids are picked first, from the entry columns (and the
+   * one table a name sort needs), so the names are looked up for those rows only and not for every
+   * entry that matches; both statements are prepared, their plans kept per connection.
+   */
   async list(operationId: string, filter: WorkEntryFilter, scope: ListScope, window: ListWindow): Promise<{ rows: WorkEntryView[]; total: number; totals: { hours: string; acres: string; miles: string } }> {
-    const where = whereOf(operationId, filter, scope);
+    const page = sql`unnest(array(${pageIds(operationId, filter, scope, window)})) with ordinality as page(id, pos)`;
     const [rows, [sums]] = await Promise.all([
-      this.views(this.dbh.db)
-        .where(where)
-        .orderBy(...sortOf(filter.sort), asc(workEntries.id))
-        .limit(window.limit)
-        .offset(window.offset),
-      this.dbh.db
-        .select({
-          total: sql<number>`count(*)::int`,
-          hours: sql<string>`coalesce(sum(${workEntries.hours}), 0)::numeric(14,2)::text`,
-          acres: sql<string>`coalesce(sum(${workEntries.acres}), 0)::numeric(16,3)::text`,
-          miles: sql<string>`coalesce(sum(${workEntries.miles}), 0)::numeric(14,3)::text`,
-        })
-        .from(workEntries)
-        .where(where),
+      runPrepared(
+        this.dbh.db
+          .select({ entry: workEntries, ...pageNames })
+          .from(workEntries)
+          .innerJoin(page, sql`page.id = ${workEntries.id}`)
+          .where(eq(workEntries.operationId, operationId))
+          .orderBy(sql`page.pos`),
+      ),
+      runPrepared(
+        this.dbh.db
+          .select({
+            total: sql<number>`count(*)::int`,
+            hours: sql<string>`coalesce(sum(matching.hours), 0)::numeric(14,2)::text`,
+            acres: sql<string>`coalesce(sum(matching.acres), 0)::numeric(16,3)::text`,
+            miles: sql<string>`coalesce(sum(matching.miles), 0)::numeric(14,3)::text`,
+          })
+          .from(sql`(${matchingQuantities(operationId, filter, scope)}) as matching`),
+      ),
     ]);
     return { rows: rows.map(flatten), total: sums!.total, totals: { hours: sums!.hours, acres: sums!.acres, miles: sums!.miles } };
   }
@@ -239,7 +340,7 @@ export class WorkEntriesRepository {
       .leftJoin(powerMachines, and(eq(powerMachines.operationId, workEntries.operationId), eq(powerMachines.id, workEntries.powerMachineId)))
       .leftJoin(implementMachines, and(eq(implementMachines.operationId, workEntries.operationId), eq(implementMachines.id, workEntries.implementMachineId)))
       .where(whereOf(operationId, filter, scope))
-      .orderBy(...sortOf(filter.sort), asc(workEntries.id))
+      .orderBy(orderOf(sortKeysOf(filter.sort)))
       .limit(cap);
     return rows.map((r) => r.id);
   }
