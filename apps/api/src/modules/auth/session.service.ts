@@ -1,6 +1,7 @@
+import { createSecretKey } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
 import { JwtService } from '@nestjs/jwt';
-import { and, eq, gt, isNull, ne, sql } from 'drizzle-orm';
+import { and, eq, gt, isNull, ne, sql, type Placeholder } from 'drizzle-orm';
 import { authSessions, memberships, operations, refreshTokens, users, type Executor } from '@hitchbook/db';
 import type { SessionUser } from '@hitchbook/shared/schemas/auth';
 import type { Actor } from '../../common/auth/actor.js';
@@ -27,11 +28,24 @@ export interface IssuedSession {
 /** Sessions, refresh-token rotation with reuse detection, and access tokens. */
 @Injectable()
 export class SessionService {
+  /**
+   * jsonwebtoken turns a string secret into a key on every call, first trying it as a public key and
+   * catching the failure, which costs more than checking the signature; the key is made once.
+   * @nestjs/jwt hands it through as it is, though its option type names only strings and buffers.
+   */
+  private readonly jwtKey: Buffer;
+  private readonly actorOfSession: ReturnType<SessionService['actorQuery']>;
+  private readonly actorOfUserSession: ReturnType<SessionService['actorQuery']>;
+
   constructor(
     @Inject(DB) private readonly dbh: DbHandle,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
     @Inject(JwtService) private readonly jwt: JwtService,
-  ) {}
+  ) {
+    this.jwtKey = createSecretKey(Buffer.from(config.jwtSecret)) as unknown as Buffer;
+    this.actorOfSession = this.actorQuery('session_actor', undefined);
+    this.actorOfUserSession = this.actorQuery('session_actor_of_user', sql.placeholder('userId'));
+  }
 
   async issueAccessToken(userId: string, sessionId: string): Promise<string> {
     const claims: AccessClaims = { sub: userId, sid: sessionId, typ: 'access' };
@@ -40,7 +54,7 @@ export class SessionService {
       audience: JWT_AUDIENCE,
       issuer: JWT_ISSUER,
       expiresIn: this.config.accessTokenTtlSeconds,
-      secret: this.config.jwtSecret,
+      secret: this.jwtKey,
     });
   }
 
@@ -52,7 +66,7 @@ export class SessionService {
         algorithms: ['HS256'],
         audience: JWT_AUDIENCE,
         issuer: JWT_ISSUER,
-        secret: this.config.jwtSecret,
+        secret: this.jwtKey,
       });
     } catch {
       return null;
@@ -63,7 +77,14 @@ export class SessionService {
   }
 
   async actorForSession(sessionId: string, userId?: string): Promise<Actor | null> {
-    const rows = await this.dbh.db
+    const rows = userId === undefined ? await this.actorOfSession.execute({ sessionId }) : await this.actorOfUserSession.execute({ sessionId, userId });
+    const row = rows[0];
+    return row ? { ...row, sessionId } : null;
+  }
+
+  /** Every signed-in request asks this, so it is built once and prepared, its plan kept per connection. */
+  private actorQuery(name: string, userId: Placeholder | undefined) {
+    return this.dbh.db
       .select({
         userId: users.id,
         email: users.email,
@@ -80,7 +101,7 @@ export class SessionService {
       .innerJoin(operations, eq(operations.id, memberships.operationId))
       .where(
         and(
-          eq(authSessions.id, sessionId),
+          eq(authSessions.id, sql.placeholder('sessionId')),
           userId ? eq(authSessions.userId, userId) : undefined,
           isNull(authSessions.revokedAt),
           gt(authSessions.expiresAt, sql`now()`),
@@ -88,9 +109,8 @@ export class SessionService {
           eq(memberships.status, 'active'),
         ),
       )
-      .limit(1);
-    const row = rows[0];
-    return row ? { ...row, sessionId } : null;
+      .limit(1)
+      .prepare(name);
   }
 
   toSessionUser(actor: Actor): SessionUser {
