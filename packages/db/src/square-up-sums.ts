@@ -51,11 +51,13 @@ export function machineUseRows(operationId: string, bounds: YearBounds, states: 
       and m.machine_id is not null`;
 }
 
-export async function machineUseSums(executor: Executor, operationId: string, bounds: YearBounds): Promise<MachineUseSums[]> {
+/** Settled hours and acres of each machine that worked in the year, from the kept sums (machine_work_type_years). */
+export async function machineUseSums(executor: Executor, operationId: string, year: number): Promise<MachineUseSums[]> {
   const result = await executor.execute<Row<MachineUseSums>>(sql`
-    select u.machine_id as "machineId", sum(u.hours)::text as hours, coalesce(sum(u.acres), 0)::text as acres
-    from (${machineUseRows(operationId, bounds, COUNTED_STATES)}) u
-    group by u.machine_id`);
+    select machine_id as "machineId", sum(hours)::text as hours, sum(acres)::text as acres
+    from machine_work_type_years
+    where operation_id = ${operationId} and year = ${year}
+    group by machine_id`);
   return result.rows;
 }
 
@@ -82,7 +84,7 @@ export function costSumsAsEntries(costs: readonly CostSums[]) {
 
 /** The engine's actual rate of every machine that worked or cost money in the year. */
 export async function actualMachineRates(executor: Executor, operationId: string, year: number): Promise<Map<string, ActualRate>> {
-  const [uses, costs] = await Promise.all([machineUseSums(executor, operationId, yearBounds(year)), machineCostSums(executor, operationId, year)]);
+  const [uses, costs] = await Promise.all([machineUseSums(executor, operationId, year), machineCostSums(executor, operationId, year)]);
   const ids = new Set([...uses.map((u) => u.machineId), ...costs.map((c) => c.machineId)]);
   return new Map(
     [...ids].map((id) => [
@@ -176,11 +178,89 @@ export function statementCostSumsQuery(period: PeriodScope): SQL {
     order by 1, 2, 3, 4`;
 }
 
+function addDays(day: string, days: number): string {
+  const d = new Date(`${day}T00:00:00Z`);
+  d.setUTCDate(d.getUTCDate() + days);
+  return d.toISOString().slice(0, 10);
+}
+
+function monthStart(day: string): string {
+  return `${day.slice(0, 7)}-01`;
+}
+
+function nextMonthStart(day: string): string {
+  const d = new Date(`${monthStart(day)}T00:00:00Z`);
+  d.setUTCMonth(d.getUTCMonth() + 1);
+  return d.toISOString().slice(0, 10);
+}
+
+/** The months lying wholly in the period (first days, or null for none) and the part months' day ranges around them. */
+export function periodMonths(from: string, to: string): { firstMonth: string | null; lastMonth: string | null; partRanges: Array<[string, string]> } {
+  const firstMonth = from.endsWith('-01') ? from : nextMonthStart(from);
+  const lastMonth = monthStart(addDays(to, 1)) === addDays(to, 1) ? monthStart(to) : monthStart(addDays(monthStart(to), -1));
+  if (firstMonth > lastMonth) return { firstMonth: null, lastMonth: null, partRanges: [[from, to]] };
+  const partRanges: Array<[string, string]> = [];
+  if (from < firstMonth) partRanges.push([from, addDays(firstMonth, -1)]);
+  const afterLast = nextMonthStart(lastMonth);
+  if (afterLast <= to) partRanges.push([afterLast, to]);
+  return { firstMonth, lastMonth, partRanges };
+}
+
+/**
+ * The period's use, from the kept monthly sums (machine_household_months) where a month lies wholly in
+ * the period and no share set or family sheet starts after its first day: every day of such a month is
+ * then priced and split alike. The period's part months and those few months are read entry by entry,
+ * range by range through the date index, so the result is the same as summing the entries.
+ */
+export function periodUsesCte({ operationId, from, to }: PeriodScope): SQL {
+  const { firstMonth, lastMonth, partRanges } = periodMonths(from, to);
+  const wholeFrom = firstMonth ?? from;
+  const wholeTo = lastMonth ? addDays(nextMonthStart(lastMonth), -1) : from;
+  return sql`split_months as (
+    select date_trunc('month', b.effective_from)::date as month,
+           case when bool_or(b.machine_id is null) then null else array_agg(b.machine_id) end as machines
+    from (select machine_id, effective_from from share_sets union all select null::uuid, effective_from from family_sheets) b
+    where ${firstMonth !== null} and b.effective_from between ${wholeFrom} and ${wholeTo} and extract(day from b.effective_from) <> 1
+    group by 1
+  ),
+  entry_ranges as (
+    select r.lo, r.hi, null::uuid[] as machines
+    from unnest(${sql.param(partRanges.map((r) => r[0]))}::date[], ${sql.param(partRanges.map((r) => r[1]))}::date[]) as r(lo, hi)
+    union all
+    select month, (month + interval '1 month')::date - 1, machines from split_months
+  ),
+  uses as (
+    select r.machine_id, r.month as work_date, r.household_id, r.hours, r.entries
+    from machine_household_months r
+    where r.operation_id = ${operationId} and ${firstMonth !== null} and r.month between ${wholeFrom} and ${wholeTo}
+      and not exists (select 1 from split_months s where s.month = r.month and (s.machines is null or r.machine_id = any(s.machines)))
+    union all
+    select u.machine_id, u.work_date, u.household_id, u.hours, 1
+    from entry_ranges er
+    cross join lateral (
+      select m.machine_id, we.work_date, we.hours, case when bp.kind = 'household' then bp.id else fo.id end as household_id
+      from work_entries we
+      cross join lateral (values (we.power_machine_id), (we.implement_machine_id)) as m(machine_id)
+      join parties bp on bp.operation_id = we.operation_id and bp.id = we.bill_to_party_id
+      left join fields f on f.operation_id = we.operation_id and f.id = we.field_id
+      left join parties fo on fo.operation_id = we.operation_id and fo.id = f.owner_party_id and fo.kind = 'household'
+      where we.operation_id = ${operationId}
+        and we.work_date between er.lo and er.hi
+        and m.machine_id is not null
+        and (er.machines is null or m.machine_id = any(er.machines))
+        and ((bp.kind = 'household' and we.state in ('approved', 'squared'))
+          or (bp.kind <> 'household' and fo.id is not null and we.state in ('approved', 'invoiced', 'squared')))
+      -- Kept apart from the outer query, so each range is its own index range scan.
+      offset 0
+    ) u
+  )`;
+}
+
 export function statementUseSumsQuery(period: PeriodScope): SQL {
   return sql`
-    with ${shareSetsCte(period.operationId)}, ${familySheetsCte(period.operationId)}, ${usesCte(period)}
+    with ${shareSetsCte(period.operationId)}, ${familySheetsCte(period.operationId)}, ${periodUsesCte(period)}
     select u.machine_id as "machineId", u.household_id as "householdId", ss.effective_from::text as "shareSetFrom",
-           fs.id as "rateSheetId", mr.rate_per_hour::text as "ratePerHour", sum(u.hours)::text as hours, count(*)::int as entries
+           fs.id as "rateSheetId", mr.rate_per_hour::text as "ratePerHour", sum(u.hours)::text as hours, sum(u.entries)::int as entries
     from uses u
     left join share_sets ss on ${inShareSet('ss', sql`u.machine_id`, sql`u.work_date`)}
     left join family_sheets fs on fs.effective_from <= u.work_date and (fs.next_from is null or u.work_date < fs.next_from)

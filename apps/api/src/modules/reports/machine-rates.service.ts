@@ -78,7 +78,7 @@ export class MachineRatesService {
   private async figures(operationId: string, year: number, executor: Executor): Promise<MachineFigures[]> {
     const [machines, uses, costs] = await Promise.all([
       this.repo.machines(operationId, executor),
-      this.repo.useSums(operationId, yearBounds(year), executor),
+      this.repo.useSums(operationId, year, executor),
       this.repo.costSums(operationId, year, executor),
     ]);
     const useBy = new Map(uses.map((use) => [use.machineId, use]));
@@ -119,7 +119,7 @@ export class MachineRatesService {
       this.repo.fuelPrices(operationId, year, executor),
       this.repo.familySheetOn(operationId, bounds.to, executor),
       this.repo.invoicedWork(operationId, bounds, executor),
-      this.repo.sheetAcreRates(operationId, bounds, executor),
+      this.repo.sheetAcreRates(operationId, year, executor),
     ]);
     const currentRates = sheet ? await this.repo.machineRatesOf(operationId, sheet.id, executor) : new Map<string, string>();
     const fuelPrice = (machineId: string | null) => {

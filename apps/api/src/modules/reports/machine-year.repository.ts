@@ -2,7 +2,6 @@ import { Inject, Injectable } from '@nestjs/common';
 import { sql } from 'drizzle-orm';
 import type { Executor } from '@hitchbook/db';
 import {
-  COUNTED_STATES,
   machineCostSums,
   machineUseRows,
   machineUseSums,
@@ -13,8 +12,9 @@ import {
 } from '@hitchbook/db/square-up-sums';
 import { DB, type DbHandle } from '../../core/database.js';
 
-// A machine's year in sums: every query is scoped by the operation id and bounded by the year's
-// dates, so a year's figures read that year's rows through the date indexes and never the other years'.
+// A machine's year in sums: every query is scoped by the operation id and bounded by the year, reading
+// the kept sums of work (machine_work_type_years) or that year's rows through the date indexes, never
+// the other years'.
 
 export type MachineRow = {
   id: string;
@@ -65,8 +65,8 @@ export class MachineYearRepository {
     return result.rows;
   }
 
-  async useSums(operationId: string, bounds: YearBounds, executor: Executor = this.dbh.db): Promise<MachineUseSums[]> {
-    return machineUseSums(executor, operationId, bounds);
+  async useSums(operationId: string, year: number, executor: Executor = this.dbh.db): Promise<MachineUseSums[]> {
+    return machineUseSums(executor, operationId, year);
   }
 
   async costSums(operationId: string, year: number, executor: Executor = this.dbh.db): Promise<CostSums[]> {
@@ -121,19 +121,18 @@ export class MachineYearRepository {
    * The neighbour sheet's custom per-acre rates for the work types each machine did this year, weighted
    * by the machine's acres of each: what the work would have been billed at.
    */
-  async sheetAcreRates(operationId: string, bounds: YearBounds, executor: Executor = this.dbh.db): Promise<Array<{ machineId: string; amount: string; acres: string }>> {
+  async sheetAcreRates(operationId: string, year: number, executor: Executor = this.dbh.db): Promise<Array<{ machineId: string; amount: string; acres: string }>> {
     const result = await executor.execute<{ machineId: string; amount: string; acres: string }>(sql`
       with sheet as (
         select id from rate_sheets
-        where operation_id = ${operationId} and relationship = 'neighbour' and party_id is null and archived_at is null and effective_from <= ${bounds.to}
+        where operation_id = ${operationId} and relationship = 'neighbour' and party_id is null and archived_at is null and effective_from <= ${yearBounds(year).to}
         order by effective_from desc, created_at desc
         limit 1
       ),
       work as (
-        select u.machine_id, u.work_type_id, sum(u.acres) as acres
-        from (${machineUseRows(operationId, bounds, COUNTED_STATES)}) u
-        where u.acres > 0
-        group by u.machine_id, u.work_type_id
+        select machine_id, work_type_id, acres
+        from machine_work_type_years
+        where operation_id = ${operationId} and year = ${year} and acres > 0
       )
       select w.machine_id as "machineId", sum(w.acres * l.rate)::text as amount, sum(w.acres)::text as acres
       from work w
@@ -146,10 +145,9 @@ export class MachineYearRepository {
   /** Hours per machine per calendar year over every year with entries: the fleet history chart, read on its own route. */
   async hoursByYear(operationId: string, executor: Executor = this.dbh.db): Promise<Array<{ machineId: string; year: number; hours: string }>> {
     const result = await executor.execute<{ machineId: string; year: number; hours: string }>(sql`
-      select m.machine_id as "machineId", extract(year from we.work_date)::int as year, sum(we.hours)::text as hours
-      from work_entries we
-      cross join lateral (values (we.power_machine_id), (we.implement_machine_id)) as m(machine_id)
-      where we.operation_id = ${operationId} and we.state in ${COUNTED_STATES} and m.machine_id is not null
+      select machine_id as "machineId", year, sum(hours)::text as hours
+      from machine_work_type_years
+      where operation_id = ${operationId}
       group by 1, 2
       order by 2`);
     return result.rows;
