@@ -102,13 +102,39 @@ async function sentStatements(run: () => Promise<unknown>): Promise<Array<{ text
   return sent;
 }
 
+const readsEntries = (s: { text: string }) => s.text.includes('"work_entries"') || s.text.includes('work_entries ');
+const onWorkEntries = (plan: PlanNode) => nodes(plan).filter((n) => n['Relation Name'] === 'work_entries' || n['Index Name']?.startsWith('work_entries_'));
+
 async function workEntryScansOfSent(sent: Array<{ text: string; values: unknown[] }>): Promise<PlanNode[][]> {
   const scans: PlanNode[][] = [];
-  for (const { text, values } of sent.filter((s) => s.text.includes('"work_entries"') || s.text.includes('work_entries '))) {
+  for (const { text, values } of sent.filter(readsEntries)) {
     const result = await t.dbh.pool.query<{ 'QUERY PLAN': Array<{ Plan: PlanNode }> }>(`explain (format json) ${text}`, values);
     // A bitmap scan names the table on its heap node and the index on its child nodes.
-    const onEntries = nodes(result.rows[0]!['QUERY PLAN'][0]!.Plan).filter((n) => n['Relation Name'] === 'work_entries' || n['Index Name']?.startsWith('work_entries_'));
+    const onEntries = onWorkEntries(result.rows[0]!['QUERY PLAN'][0]!.Plan);
     if (onEntries.length > 0) scans.push(onEntries);
+  }
+  return scans;
+}
+
+/** The plans a prepared statement settles on after its first executions: generic, made without the parameters' values. */
+async function genericWorkEntryScans(sent: Array<{ text: string; values: unknown[] }>): Promise<PlanNode[][]> {
+  const scans: PlanNode[][] = [];
+  const client = await t.dbh.pool.connect();
+  const literal = (value: unknown): string =>
+    Array.isArray(value) ? client.escapeLiteral(`{${value.map((v) => `"${String(v).replace(/["\\]/g, '\\$&')}"`).join(',')}}`) : client.escapeLiteral(String(value));
+  try {
+    await client.query('set plan_cache_mode = force_generic_plan');
+    for (const [i, { text, values }] of sent.filter(readsEntries).entries()) {
+      await client.query(`prepare generic_${i} as ${text}`);
+      const args = values.map(literal).join(', ');
+      const result = await client.query<{ 'QUERY PLAN': Array<{ Plan: PlanNode }> }>(`explain (format json) execute generic_${i}${args ? `(${args})` : ''}`);
+      await client.query(`deallocate generic_${i}`);
+      const onEntries = onWorkEntries(result.rows[0]!['QUERY PLAN'][0]!.Plan);
+      if (onEntries.length > 0) scans.push(onEntries);
+    }
+  } finally {
+    await client.query('reset plan_cache_mode');
+    client.release();
   }
   return scans;
 }
@@ -186,6 +212,7 @@ describe('query plans of the work-entry list', () => {
   const filters = (): Array<[string, Record<string, unknown>]> => [
     ['the year', {}],
     ['the year and a machine', { machineId: history.cart }],
+    ['the year and a power unit', { machineId: history.tractor }],
     ['the year and a field', { fieldId: history.field }],
     ['the year and an operator', { operatorUserId: op.members.operator.userId }],
     ['the year and who is billed', { billToPartyId: op.customers[0] }],
@@ -204,6 +231,25 @@ describe('query plans of the work-entry list', () => {
         expectBoundedByDate(scans, `${label}, sorted ${sort}`);
       }
     }
+  });
+
+  it('keeps reading through date-bounded indexes once the prepared statements use their generic plans', async () => {
+    const entries = t.app.get(WorkEntriesRepository);
+    for (const [label, extra] of filters()) {
+      const sent = await sentStatements(() => entries.list(op.operationId, { ...year, ...extra, sort: '-date' } as never, {}, { limit: 50, offset: 100 }));
+      const scans = await genericWorkEntryScans(sent);
+      expect(scans.length, label).toBe(2);
+      expectBoundedByDate(scans, `${label}, generic plan`);
+    }
+  });
+
+  it("reads a machine's page and totals from its two machine-ordered indexes, without visiting other entries", async () => {
+    const sent = await sentStatements(() => t.app.get(WorkEntriesRepository).list(op.operationId, { ...year, machineId: history.tractor, sort: '-date' } as never, {}, { limit: 50, offset: 0 }));
+    const scans = await workEntryScansOfSent(sent);
+    const indexes = scans.map((scan) => scan.map((n) => n['Index Name']).filter(Boolean));
+    for (const used of indexes) expect(used).toEqual(expect.arrayContaining(['work_entries_operation_power_recent_idx', 'work_entries_operation_implement_recent_idx']));
+    // The page is ordered by the index and cut there, so no sort of the machine's year happens.
+    expect(scans[0]!.map((n) => n['Node Type'])).not.toContain('Bitmap Heap Scan');
   });
 
   it('reads work entries through an index for an operator who sees only their own entries', async () => {
