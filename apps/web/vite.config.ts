@@ -1,3 +1,5 @@
+import { createRequire } from 'node:module';
+import { dirname, join } from 'node:path';
 import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import { pwaPlugin } from './pwa.config';
@@ -5,8 +7,21 @@ import { pwaPlugin } from './pwa.config';
 const apiPort = process.env.API_PORT ?? '3001';
 const port = Number(process.env.PORT ?? 3000);
 
-export default defineConfig({
+// React Router's package exports name only its development build (warnings, invariant texts); a production
+// build takes the production files the package ships beside it.
+const reactRouterProduction = join(dirname(createRequire(import.meta.url).resolve('react-router/package.json')), 'dist', 'production');
+
+export default defineConfig(({ mode }) => ({
   plugins: [react(), pwaPlugin()],
+  resolve: {
+    alias:
+      mode === 'production'
+        ? [
+            { find: /^react-router$/, replacement: join(reactRouterProduction, 'index.mjs') },
+            { find: /^react-router\/dom$/, replacement: join(reactRouterProduction, 'dom-export.mjs') },
+          ]
+        : [],
+  },
   server: {
     host: '127.0.0.1',
     port,
@@ -24,8 +39,8 @@ export default defineConfig({
       output: {
         // Mantine's own core (provider, factories, styles API) is under every component; left to the
         // splitter it scatters over many small chunks that compress worse than one.
-        codeSplitting: { groups: [{ name: 'mantine-core', test: /@mantine[\\/]core[\\/]esm[\\/]core[\\/]/ }] },
+        codeSplitting: { groups: [{ name: 'mantine-core', test: /@mantine[\\/]core[\\/]esm[\\/](core|components[\\/](Input|InputBase|TextInput|PasswordInput|ActionIcon|Anchor|UnstyledButton|Loader|Transition|CloseButton|Alert|Text|Button|Stack|Title|Group|Paper|Center|Container|ThemeIcon))[\\/]/ }] },
       },
     },
   },
-});
+}));

@@ -29,9 +29,13 @@ async function storedEntriesNoted(notes: string[]): Promise<StoredEntry[]> {
   return page.items.filter((e) => e.notes !== null && notes.includes(e.notes));
 }
 
-async function pick(page: Page, input: Locator, label: string) {
-  await input.click();
-  await page.getByRole('option', { name: new RegExp(`^${label.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}`) }).first().click();
+/** The cab form's native picker: choose the option whose label starts with `label`. */
+async function pick(select: Locator, label: string) {
+  await select.waitFor();
+  const labels = await select.locator('option').allTextContents();
+  const match = labels.find((text) => text.startsWith(label));
+  if (match === undefined) throw new Error(`no option starting with "${label}" among ${labels.join(' | ')}`);
+  await select.selectOption({ label: match });
 }
 
 /** A phone with the service worker installed and in control, as after the first visit. */
@@ -50,8 +54,8 @@ async function signInAndOpenLog(page: Page, email: string, waitForWorker = true)
 
 /** One pass logged by hours, the way an operator fills the cab form. */
 async function logByHours(page: Page, hours: string, notes: string) {
-  await pick(page, page.getByTestId('entry-field'), 'Home West');
-  await pick(page, page.getByTestId('entry-work-type'), 'Grain cart');
+  await pick(page.getByTestId('entry-field'), 'Home West');
+  await pick(page.getByTestId('entry-work-type'), 'Grain cart');
   await page.getByText('Hours', { exact: true }).click();
   await page.getByLabel('Machine hours').fill(hours);
   await page.getByLabel('Notes').fill(notes);
@@ -97,7 +101,7 @@ describe('logging work without signal', () => {
       await page.getByTestId('entry-field').waitFor();
       await page.getByTestId('queue-waiting').getByText('Saved on this phone — 3 waiting').waitFor();
       expect(await queuedCount(page)).toBe(3);
-      await pick(page, page.getByTestId('entry-field'), 'Home West');
+      await pick(page.getByTestId('entry-field'), 'Home West');
       await screenshot(page, 'offline-after-reload-operator-phone');
       expect(await storedEntriesNoted(notes)).toEqual([]);
 
@@ -144,9 +148,9 @@ describe('logging work without signal', () => {
     const note = `Meter conflict pass, ${run}`;
     await inContext(context, page, 'offline-meter-conflict', async () => {
       await signInAndOpenLog(page, DEMO_SIGN_INS.operator);
-      await pick(page, page.getByTestId('entry-field'), 'Home West');
-      await pick(page, page.getByTestId('entry-work-type'), 'Grain cart');
-      await pick(page, page.getByTestId('entry-power-unit'), 'Tavin’s 65');
+      await pick(page.getByTestId('entry-field'), 'Home West');
+      await pick(page.getByTestId('entry-work-type'), 'Grain cart');
+      await pick(page.getByTestId('entry-power-unit'), 'Tavin’s 65');
       const meterStart = page.getByLabel('Meter start');
       await expect.poll(() => meterStart.inputValue()).toMatch(/^\d+(\.\d+)?$/);
       const start = Number(await meterStart.inputValue());

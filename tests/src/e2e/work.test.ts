@@ -13,10 +13,21 @@ afterAll(async () => {
   await browser?.close();
 });
 
-/** Mantine's select: open it by its input, then take the option whose label starts with `label`. */
-async function pick(page: Page, input: Locator, label: string) {
-  await input.click();
-  await page.getByRole('option', { name: new RegExp(`^${label.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}`) }).first().click();
+/** The cab form's native picker: choose the option whose label starts with `label`. */
+async function pick(select: Locator, label: string) {
+  await select.waitFor();
+  const labels = await select.locator('option').allTextContents();
+  const match = labels.find((text) => text.startsWith(label));
+  if (match === undefined) throw new Error(`no option starting with "${label}" among ${labels.join(' | ')}`);
+  await select.selectOption({ label: match });
+}
+
+/** The label of the option a native picker shows. */
+function pickedLabel(select: Locator): Promise<string> {
+  return select.evaluate((element) => {
+    const picker = element as HTMLSelectElement;
+    return picker.options[picker.selectedIndex]?.text ?? '';
+  });
 }
 
 interface Named {
@@ -40,16 +51,16 @@ describe('logging work from the cab', () => {
       expect(await page.getByLabel('Day of the work').inputValue()).toBe(todayIso());
       expect(await page.getByLabel('Operator').inputValue()).toBe('Rudy Calloway');
 
-      await pick(page, field, 'Saltlick Lane ditches');
-      await pick(page, page.getByTestId('entry-work-type'), 'Roadside mowing');
+      await pick(field, 'Saltlick Lane ditches');
+      await pick(page.getByTestId('entry-work-type'), 'Roadside mowing');
       const roadside = page.getByTestId('caution-roadside');
       await roadside.waitFor();
       expect(await roadside.textContent()).toContain('Working beside traffic');
       expect(await roadside.textContent()).toContain('local traffic, work-zone and equipment codes, the road authority and licensed practice come first');
       await screenshot(page, 'cab-entry-caution-operator-phone');
 
-      await pick(page, page.getByTestId('entry-power-unit'), 'Tavin’s 65');
-      await pick(page, page.getByTestId('entry-implement'), '7-ft roadside cutter');
+      await pick(page.getByTestId('entry-power-unit'), 'Tavin’s 65');
+      await pick(page.getByTestId('entry-implement'), '7-ft roadside cutter');
       // The meter start comes from the tractor's last reading; the hours follow live from the end.
       const meterStart = page.getByLabel('Meter start');
       await expect.poll(() => meterStart.inputValue()).toMatch(/^\d+(\.\d)?$/);
@@ -94,8 +105,8 @@ describe('logging work from the cab', () => {
 
       // The next pass offers the same rig first.
       await page.getByRole('button', { name: 'Log the next pass' }).click();
-      await expect.poll(() => page.getByTestId('entry-power-unit').inputValue()).toBe('Tavin’s 65');
-      expect(await page.getByTestId('entry-implement').inputValue()).toBe('7-ft roadside cutter');
+      await expect.poll(() => pickedLabel(page.getByTestId('entry-power-unit'))).toBe('Tavin’s 65');
+      expect(await pickedLabel(page.getByTestId('entry-implement'))).toBe('7-ft roadside cutter');
       expect(foreignRequests).toEqual([]);
     });
 
@@ -128,8 +139,8 @@ describe('logging work from the cab', () => {
     await inFreshPage(browser, PHONE, 'long-entry', async ({ page }) => {
       await signInAndWait(page, DEMO_SIGN_INS.owner);
       await page.goto(`${baseUrlOrThrow()}/work/log`);
-      await pick(page, page.getByTestId('entry-field'), 'Home West');
-      await pick(page, page.getByTestId('entry-work-type'), 'Grain cart');
+      await pick(page.getByTestId('entry-field'), 'Home West');
+      await pick(page.getByTestId('entry-work-type'), 'Grain cart');
       await page.getByText('Hours', { exact: true }).click();
       await page.getByLabel('Machine hours').fill('17');
       await page.getByText('That is a long day.', { exact: false }).waitFor();

@@ -1,6 +1,7 @@
+import { Component, type ErrorInfo, type ReactNode } from 'react';
 import { Alert, Button, Container, Stack, Text, Title } from '@mantine/core';
 import { IconAlertTriangle, IconDatabaseOff } from '@tabler/icons-react';
-import { Navigate, isRouteErrorResponse, useLocation, useRouteError } from 'react-router-dom';
+import { Navigate, useLocation } from 'react-router-dom';
 import { NotAllowed } from '../components/NotAllowed';
 import { NotFound } from '../components/NotFound';
 import { isApiError } from '../lib/api';
@@ -11,12 +12,9 @@ function isStaleChunk(error: unknown): boolean {
   return error instanceof TypeError && /dynamically imported module|Importing a module script failed/i.test(error.message);
 }
 
-export function RouteErrorBoundary() {
-  const error = useRouteError();
+function RouteError({ error }: { error: unknown }) {
   const location = useLocation();
 
-  if (isRouteErrorResponse(error) && error.status === 403) return <NotAllowed />;
-  if (isRouteErrorResponse(error) && error.status === 404) return <NotFound />;
   if (isApiError(error) && error.status === 403) return <NotAllowed />;
   if (isApiError(error) && error.status === 404) return <NotFound />;
   if (isApiError(error) && error.status === 401) {
@@ -46,4 +44,42 @@ export function RouteErrorBoundary() {
       </Stack>
     </Container>
   );
+}
+
+interface BoundaryProps {
+  children: ReactNode;
+}
+
+interface BoundaryState {
+  error: unknown;
+  /** The page the error happened on: following a link elsewhere gives the next page a fresh start. */
+  pathname: string | null;
+}
+
+class Boundary extends Component<BoundaryProps & { pathname: string }, BoundaryState> {
+  override state: BoundaryState = { error: null, pathname: null };
+
+  static getDerivedStateFromError(error: unknown): Partial<BoundaryState> {
+    return { error: error ?? new Error('Unknown error') };
+  }
+
+  static getDerivedStateFromProps(props: { pathname: string }, state: BoundaryState): Partial<BoundaryState> | null {
+    if (state.error && state.pathname !== null && state.pathname !== props.pathname) return { error: null, pathname: null };
+    if (state.error && state.pathname === null) return { pathname: props.pathname };
+    return null;
+  }
+
+  override componentDidCatch(error: unknown, info: ErrorInfo) {
+    console.error(error, info.componentStack);
+  }
+
+  override render() {
+    return this.state.error ? <RouteError error={this.state.error} /> : this.props.children;
+  }
+}
+
+/** What a page shows when it fails to load or render: a page of its own, inside the frame around it. */
+export function RouteErrorBoundary({ children }: BoundaryProps) {
+  const { pathname } = useLocation();
+  return <Boundary pathname={pathname}>{children}</Boundary>;
 }

@@ -2,10 +2,21 @@ import { createContext, useCallback, useContext, useMemo, useSyncExternalStore, 
 import type { SessionUser } from '@hitchbook/shared/schemas/auth';
 import { api, isApiError, sessionStore, type Session } from './api';
 import { forgetPhoneUser, offlineSession, readPhoneUser, rememberPhoneUser } from './offlineSession';
-import { queryClient } from './queryClient';
 import { noteServerError, noteServerSuccess } from './serviceStatus';
 
 let restoring: Promise<void> | null = null;
+
+// The query cache arrives with the signed-in frame; the sign-in page must not load it just to empty it.
+const cacheClearers = new Set<() => void>();
+
+/** Cached rows belong to one person: whatever holds them registers here to be emptied when the person changes. */
+export function clearOnAccountChange(clear: () => void): void {
+  cacheClearers.add(clear);
+}
+
+function clearCaches(): void {
+  for (const clear of cacheClearers) clear();
+}
 
 rememberPhoneUser(sessionStore);
 
@@ -43,12 +54,12 @@ export function AuthProvider({ children }: { children: ReactNode }) {
   const session = useSyncExternalStore(sessionStore.subscribe, sessionStore.get);
 
   const signIn = useCallback(async (email: string, password: string) => {
-    queryClient.clear();
+    clearCaches();
     return (await api.signIn('/api/auth/login', { email, password })).user;
   }, []);
 
   const acceptInvitation = useCallback(async (input: { token: string; name: string; password: string }) => {
-    queryClient.clear();
+    clearCaches();
     return (await api.signIn('/api/auth/invitations/accept', input)).user;
   }, []);
 
@@ -58,7 +69,7 @@ export function AuthProvider({ children }: { children: ReactNode }) {
     } finally {
       await forgetPhoneUser();
       // Cached rows belong to the person leaving; the next sign-in must not see them.
-      queryClient.clear();
+      clearCaches();
     }
   }, []);
 

@@ -1,26 +1,11 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState, type FormEvent } from 'react';
 import { useForm, type FormErrors } from '@mantine/form';
 import type { UseMutationResult } from '@tanstack/react-query';
-import { zod4Resolver } from 'mantine-form-zod-resolver';
-import type { $ZodType } from 'zod/v4/core';
-import { isApiError } from './api';
+import type { ZodType } from 'zod';
+import { hasPath, placeServerIssues, samePath, type IssuePathMap } from './serverIssues';
 
 // Mantine's own constraint; unlike Record<string, unknown> it also accepts plain interfaces.
 type FormValues = Record<string, any>;
-
-/** Turns a path in the request body into the path of the form field that holds it. */
-export type IssuePathMap<Values = unknown> = (payloadPath: string, values: Values) => string;
-
-const samePath: IssuePathMap = (path) => path;
-
-function hasPath(values: unknown, path: string): boolean {
-  let node: unknown = values;
-  for (const part of path.split('.')) {
-    if (typeof node !== 'object' || node === null || !(part in node)) return false;
-    node = (node as Record<string, unknown>)[part];
-  }
-  return true;
-}
 
 function remapErrors<Values>(errors: FormErrors, issuePath: IssuePathMap<Values>, values: Values): FormErrors {
   const mapped: FormErrors = {};
@@ -28,34 +13,39 @@ function remapErrors<Values>(errors: FormErrors, issuePath: IssuePathMap<Values>
   return mapped;
 }
 
-export interface PlacedIssues {
-  fieldErrors: FormErrors;
-  /** The server's message (when some field is marked) plus every issue no field on this form can show. */
-  banner: string;
+/**
+ * The schema itself, or a loader for it: a page that must show quickly (the cab form) loads zod and its
+ * schema right after it is drawn, and a submit before it has arrived waits for it rather than skip the checks.
+ */
+export type SchemaSource = ZodType | (() => Promise<ZodType>);
+
+/** The schema's issues by dotted path, the last one for a path winning, as @mantine/form expects them. */
+export function schemaErrors(schema: ZodType, payload: unknown): FormErrors {
+  const parsed = schema.safeParse(payload);
+  if (parsed.success) return {};
+  const errors: FormErrors = {};
+  for (const issue of parsed.error.issues) errors[issue.path.join('.')] = issue.message;
+  return errors;
 }
 
-/** Sorts a failed request's issues into those a field can show and those only a banner can. */
-export function placeServerIssues<Values>(
-  values: Values,
-  error: unknown,
-  issuePath: IssuePathMap<Values> = samePath,
-): PlacedIssues {
-  if (!isApiError(error)) return { fieldErrors: {}, banner: 'Something went wrong. Try again.' };
-  const fieldErrors: FormErrors = {};
-  const unplaced: string[] = [];
-  for (const issue of error.issues) {
-    const path = issue.path ? issuePath(issue.path, values) : '';
-    if (path && hasPath(values, path)) fieldErrors[path] ??= issue.message;
-    else unplaced.push(issue.message);
-  }
-  // When no field is marked, a general "check the fields" message would send the user hunting.
-  const lead = Object.keys(fieldErrors).length === 0 && unplaced.length > 0 ? [] : [error.message];
-  return { fieldErrors, banner: [...lead, ...unplaced.filter((m) => m !== error.message)].join(' ') };
+function useSchema(source: SchemaSource) {
+  const loaded = useRef<ZodType | null>(typeof source === 'function' ? null : source);
+  const loading = useRef<Promise<ZodType> | null>(null);
+  const load = () => {
+    if (typeof source !== 'function') return Promise.resolve(source);
+    loading.current ??= source().then((schema) => (loaded.current = schema));
+    return loading.current;
+  };
+  useEffect(() => {
+    void load();
+    // The source is fixed for the form's life.
+  }, []);
+  return { loaded, load };
 }
 
 interface ServerFormOptions<Values extends FormValues, Payload, Result> {
   /** The shared zod schema of the request; the form checks exactly what it is about to send. */
-  schema: $ZodType;
+  schema: SchemaSource;
   initialValues: Values;
   /** Builds the request body from the fields. Must not throw on half-filled input. */
   toPayload: (values: Values) => Payload;
@@ -75,12 +65,14 @@ export function useServerForm<Values extends FormValues, Payload, Result>(
   options: ServerFormOptions<Values, Payload, Result>,
 ) {
   const { schema, initialValues, toPayload, mutation, onSuccess, check, issuePath = samePath } = options;
-  const resolver = zod4Resolver(schema);
+  const { loaded, load } = useSchema(schema);
   const form = useForm<Values>({
     mode: 'controlled',
     initialValues,
+    // Until a loaded schema has arrived a field left after typing is checked by the form's own rules only;
+    // a submit waits for it below.
     validate: (values) => ({
-      ...remapErrors(resolver(toPayload(values) as Record<string, unknown>), issuePath, values),
+      ...(loaded.current ? remapErrors(schemaErrors(loaded.current, toPayload(values)), issuePath, values) : {}),
       ...check?.(values),
     }),
     // A field is checked when left after typing in it; an untouched empty field stays quiet,
@@ -93,7 +85,7 @@ export function useServerForm<Values extends FormValues, Payload, Result>(
   });
   const [formError, setFormError] = useState<string | null>(null);
 
-  const onSubmit = form.onSubmit(
+  const submit = form.onSubmit(
     (values) => {
       setFormError(null);
       mutation.mutate(toPayload(values), {
@@ -113,6 +105,17 @@ export function useServerForm<Values extends FormValues, Payload, Result>(
       setFormError(unplaced.length > 0 ? unplaced.join(' ') : null);
     },
   );
+
+  const onSubmit = (event?: FormEvent<HTMLFormElement>) => {
+    if (loaded.current) return submit(event);
+    event?.preventDefault();
+    // Should the schema's chunk not load (no signal, no service worker yet), the entry is still sent or
+    // queued: the server checks it against the same schema either way.
+    void load().then(
+      () => submit(),
+      () => submit(),
+    );
+  };
 
   return { form, onSubmit, formError, submitting: mutation.isPending };
 }

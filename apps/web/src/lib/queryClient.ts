@@ -1,5 +1,6 @@
 import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query';
 import { isApiError } from './api';
+import { clearOnAccountChange } from './auth';
 import { noteServerError, noteServerSuccess } from './serviceStatus';
 
 /** Only outages are worth retrying; a 4xx answer will not change by asking again. */
@@ -20,3 +21,4 @@ export function createQueryClient(): QueryClient {
 }
 
 export const queryClient = createQueryClient();
+clearOnAccountChange(() => queryClient.clear());

@@ -477,8 +477,7 @@ export interface MachineSummaryDto {
 export const UPLOAD_PURPOSES = ['receipt', 'machine-photo', 'entry-photo', 'field-boundary'] as const;
 export type UploadPurpose = (typeof UPLOAD_PURPOSES)[number];
 
-/** At most 10 MB per file (a phone photo of a receipt is a few MB). */
-export const MAX_UPLOAD_BYTES = 10 * 1024 * 1024;
+export { MAX_UPLOAD_BYTES } from '../upload-limits.js';
 
 /** The form fields beside `file` in POST /api/uploads (multipart/form-data). */
 export const uploadFieldsSchema = z.strictObject({ purpose: oneOf(UPLOAD_PURPOSES) });

@@ -311,8 +311,7 @@ export interface ImportReport<Row = Record<string, unknown>> {
 
 // ---------------------------------------------------------------- photos of an entry
 
-/** Enough for the pass, the field's corners and a broken part; more belongs in the machine's records. */
-export const MAX_ENTRY_PHOTOS = 12;
+export { MAX_ENTRY_PHOTOS } from '../upload-limits.js';
 
 /** A photo attached to an entry, as listed beside it (the file itself comes from its own route). */
 export interface WorkEntryPhotoDto {

@@ -1,4 +1,4 @@
-import { NavLink, ScrollArea, Stack, Text } from '@mantine/core';
+import { Box, NavLink, Stack, Text } from '@mantine/core';
 import type { Role } from '@hitchbook/shared/roles';
 import { NavLink as RouterLink, useLocation } from 'react-router-dom';
 import { areasFor, type Area } from '../../lib/areas';
@@ -53,7 +53,8 @@ function AreaLink({ area, pathname }: { area: Area; pathname: string }) {
 export function MainNav({ role, operationName }: { role: Role; operationName: string }) {
   const { pathname } = useLocation();
   return (
-    <ScrollArea h="100%">
+    // The browser's own scrolling: a long navigation on a short phone scrolls like any page.
+    <Box h="100%" style={{ overflowY: 'auto' }}>
       <Text hiddenFrom="xs" fw={700} c="harbor.8" px="sm" pb="xs">
         {operationName}
       </Text>
@@ -62,6 +63,6 @@ export function MainNav({ role, operationName }: { role: Role; operationName: st
           <AreaLink key={area.key} area={area} pathname={pathname} />
         ))}
       </Stack>
-    </ScrollArea>
+    </Box>
   );
 }

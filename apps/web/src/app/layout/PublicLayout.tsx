@@ -1,6 +1,8 @@
-import { Box, Center, Container, Paper, Stack, Text } from '@mantine/core';
+import { Suspense } from 'react';
+import { Box, Center, Container, Loader, Paper, Stack, Text } from '@mantine/core';
 import { Outlet } from 'react-router-dom';
 import { DatabaseDownNotice } from '../../components/DatabaseDownNotice';
+import { RouteErrorBoundary } from '../RouteErrorBoundary';
 import { Brand } from './Brand';
 
 /** Sign-in, password reset and invitation pages: one narrow card, readable on any phone. */
@@ -19,7 +21,17 @@ export function PublicLayout() {
           </Center>
           <Paper p={{ base: 'md', sm: 'xl' }} radius="lg" shadow="md">
             <DatabaseDownNotice />
-            <Outlet />
+            <RouteErrorBoundary>
+              <Suspense
+                fallback={
+                  <Center py="xl">
+                    <Loader />
+                  </Center>
+                }
+              >
+                <Outlet />
+              </Suspense>
+            </RouteErrorBoundary>
           </Paper>
         </Stack>
       </Container>

@@ -1,17 +1,13 @@
-import { Avatar, Group, Menu, Text, UnstyledButton } from '@mantine/core';
+import { Menu, Text } from '@mantine/core';
 import type { SessionUser } from '@hitchbook/shared/schemas/auth';
-import { IconChevronDown, IconLogout, IconUserCircle } from '@tabler/icons-react';
+import { IconLogout, IconUserCircle } from '@tabler/icons-react';
 import { Link, useNavigate } from 'react-router-dom';
 import { useAuth } from '../../lib/auth';
 import { paths } from '../../lib/paths';
 import { ROLE_LABELS } from '../../lib/roleLabels';
+import { AccountButton } from './AccountButton';
 
-function initials(name: string): string {
-  const parts = name.trim().split(/\s+/);
-  return ((parts[0]?.[0] ?? '') + (parts.length > 1 ? (parts[parts.length - 1]?.[0] ?? '') : '')).toUpperCase();
-}
-
-export function UserMenu({ user }: { user: SessionUser }) {
+export default function UserMenu({ user, defaultOpened }: { user: SessionUser; defaultOpened: boolean }) {
   const { signOut } = useAuth();
   const navigate = useNavigate();
 
@@ -24,19 +20,9 @@ export function UserMenu({ user }: { user: SessionUser }) {
   }
 
   return (
-    <Menu position="bottom-end" width={260} shadow="md">
+    <Menu position="bottom-end" width={260} shadow="md" defaultOpened={defaultOpened}>
       <Menu.Target>
-        <UnstyledButton aria-label="Your account" data-testid="user-menu" mih={48} px={4}>
-          <Group gap="xs" wrap="nowrap">
-            <Avatar color="clay" variant="filled" radius="xl">
-              {initials(user.name)}
-            </Avatar>
-            <Text c="white" fw={600} visibleFrom="sm" truncate maw={180}>
-              {user.name}
-            </Text>
-            <IconChevronDown size={18} color="white" />
-          </Group>
-        </UnstyledButton>
+        <AccountButton user={user} />
       </Menu.Target>
       <Menu.Dropdown>
         <Menu.Label>

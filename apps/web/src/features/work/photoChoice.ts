@@ -1,5 +1,4 @@
-import { MAX_UPLOAD_BYTES } from '@hitchbook/shared/schemas/machines';
-import { MAX_ENTRY_PHOTOS } from '@hitchbook/shared/schemas/work-entries';
+import { MAX_ENTRY_PHOTOS, MAX_UPLOAD_BYTES } from '@hitchbook/shared/upload-limits';
 
 /** What the server takes (it checks the content again); a phone camera saves JPEG. */
 const PHOTO_TYPES = new Set(['image/jpeg', 'image/png']);

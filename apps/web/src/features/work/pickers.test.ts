@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { FieldDto } from '@hitchbook/shared/schemas/fields';
 import type { MachineDto } from '@hitchbook/shared/schemas/machines';
-import { fieldPickerData, machinePickerData } from './pickers';
+import { fieldPickerData, machinePickerData, withBlank } from './pickers';
 
 function machine(id: string, name: string, kind: MachineDto['kind'], unitNumber: string | null = null): MachineDto {
   return { id, name, kind, unitNumber } as MachineDto;
@@ -46,5 +46,13 @@ describe('field picker', () => {
     expect(groups.map((g) => g.group)).toEqual(['Home Place', 'River Bottom', 'Road stretches']);
     expect(groups[0]?.items[0]?.label).toBe('Home West · 61.2 ac');
     expect(groups[2]?.items[0]?.label).toBe('Saltlick Lane ditches · 1.1 mi');
+  });
+});
+
+describe('native picker blanks', () => {
+  it('puts the blank first, choosable for an optional picker and not for a required one', () => {
+    const groups = machinePickerData(fleet, 'implement', null);
+    expect(withBlank(groups, 'None')).toEqual([{ value: '', label: 'None' }, ...groups]);
+    expect(withBlank(groups, 'Pick the kind of work', { disabled: true })[0]).toEqual({ value: '', label: 'Pick the kind of work', disabled: true });
   });
 });

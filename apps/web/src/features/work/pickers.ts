@@ -3,9 +3,15 @@ import type { MachineDto } from '@hitchbook/shared/schemas/machines';
 import type { WorkTypeDto } from '@hitchbook/shared/schemas/work-types';
 import { plainDecimal } from './entryForm';
 
+export interface PickerItem {
+  value: string;
+  label: string;
+  disabled?: boolean;
+}
+
 export interface PickerGroup {
   group: string;
-  items: { value: string; label: string }[];
+  items: PickerItem[];
 }
 
 const machineLabel = (m: MachineDto) => (m.unitNumber ? `${m.name} (#${m.unitNumber})` : m.name);
@@ -39,4 +45,12 @@ export function fieldPickerData(fields: readonly FieldDto[]): PickerGroup[] {
 
 export function workTypePickerData(types: readonly WorkTypeDto[]): { value: string; label: string }[] {
   return types.filter((t) => !t.archived).map((t) => ({ value: t.id, label: t.name }));
+}
+
+/**
+ * A native picker always shows one of its options: the empty first one stands for "none" where a
+ * choice is optional, or asks for a choice (and cannot be chosen back) where one is required.
+ */
+export function withBlank(data: readonly (PickerItem | PickerGroup)[], label: string, { disabled = false } = {}): (PickerItem | PickerGroup)[] {
+  return [{ value: '', label, ...(disabled ? { disabled } : {}) }, ...data];
 }

@@ -1,24 +1,62 @@
+import { useState, type ChangeEvent, type FormEvent } from 'react';
 import { Anchor, Button, PasswordInput, Stack, TextInput, Title } from '@mantine/core';
-import { loginSchema } from '@hitchbook/shared/schemas/auth';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { FormErrorAlert } from '../../../components/FormErrorAlert';
-import { useServerForm } from '../../../lib/form';
+import { useAuth } from '../../../lib/auth';
 import { paths, safeNextPath } from '../../../lib/paths';
-import { useSignIn } from '../api/signIn';
+import { placeServerIssues, type FieldErrors } from '../../../lib/serverIssues';
+import { signInIssues, type SignInValues } from '../signInChecks';
 
+// The first page most people see, often on a phone in a yard: two fields checked by hand rather than
+// through the form recipe, so it loads neither zod nor the query cache. It behaves like the recipe: a
+// field is checked when left after typing in it, everything on submit, the server's issues on their fields.
 export function Component() {
   const [searchParams] = useSearchParams();
   const navigate = useNavigate();
-  const { form, onSubmit, formError, submitting } = useServerForm({
-    schema: loginSchema,
-    initialValues: { email: '', password: '' },
-    mutation: useSignIn(),
-    toPayload: (values) => values,
-    onSuccess: () => navigate(safeNextPath(searchParams.get('next')), { replace: true }),
-  });
+  const { signIn } = useAuth();
+  const [values, setValues] = useState<SignInValues>({ email: '', password: '' });
+  const [errors, setErrors] = useState<FieldErrors>({});
+  const [formError, setFormError] = useState<string | null>(null);
+  const [submitting, setSubmitting] = useState(false);
+
+  function field(name: keyof SignInValues) {
+    return {
+      value: values[name],
+      error: errors[name],
+      onChange: (event: ChangeEvent<HTMLInputElement>) => {
+        const value = event.currentTarget.value;
+        setValues((current) => ({ ...current, [name]: value }));
+        setErrors(({ [name]: _cleared, ...rest }) => rest);
+      },
+      onBlur: () => {
+        if (values[name] === '') return;
+        const issue = signInIssues(values)[name];
+        setErrors(({ [name]: _old, ...rest }) => (issue ? { ...rest, [name]: issue } : rest));
+      },
+    };
+  }
+
+  async function onSubmit(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const issues = signInIssues(values);
+    setErrors(issues);
+    setFormError(null);
+    if (Object.keys(issues).length > 0 || submitting) return;
+    setSubmitting(true);
+    try {
+      await signIn(values.email, values.password);
+      navigate(safeNextPath(searchParams.get('next')), { replace: true });
+    } catch (error) {
+      const { fieldErrors, banner } = placeServerIssues(values, error);
+      setErrors(fieldErrors);
+      setFormError(banner);
+    } finally {
+      setSubmitting(false);
+    }
+  }
 
   return (
-    <form onSubmit={onSubmit} noValidate>
+    <form onSubmit={(event) => void onSubmit(event)} noValidate>
       <Stack gap="md">
         <Title order={1} size="h2">
           Sign in
@@ -30,9 +68,9 @@ export function Component() {
           autoComplete="username"
           inputMode="email"
           autoFocus
-          {...form.getInputProps('email')}
+          {...field('email')}
         />
-        <PasswordInput label="Password" autoComplete="current-password" {...form.getInputProps('password')} />
+        <PasswordInput label="Password" autoComplete="current-password" {...field('password')} />
         <Button type="submit" size="lg" loading={submitting} fullWidth>
           Sign in
         </Button>

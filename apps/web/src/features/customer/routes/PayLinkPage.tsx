@@ -1,13 +1,13 @@
 import { useEffect, useState, type ReactNode } from 'react';
 import { Button, Group, Loader, Paper, Skeleton, Stack, Text, ThemeIcon, Title } from '@mantine/core';
 import { IconCircleCheck, IconClockHour4, IconCreditCardOff } from '@tabler/icons-react';
-import { Link, redirect, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
 import { formatMoney } from '@hitchbook/shared/money';
 import type { InvoiceDto } from '@hitchbook/shared/schemas/invoices';
 import { NotFound } from '../../../components/NotFound';
 import { QueryError } from '../../../components/QueryError';
 import { isApiError } from '../../../lib/api';
-import { currentSession, restoreSessionOnce } from '../../../lib/auth';
+import { useSessionUserOrThrow } from '../../../lib/auth';
 import { paths } from '../../../lib/paths';
 import { useMyInvoice } from '../api/getMyInvoice';
 import { useMyPayments } from '../api/listMyPayments';
@@ -15,21 +15,6 @@ import { PayButton } from '../components/PayButton';
 import { paymentReturnStatus, type ReturnStatus } from '../paymentReturn';
 
 const POLL_MS = 1500;
-
-/**
- * The e-mail's pay link opens the invoice for whoever signs in: the customer's own page, or the
- * staff page for the outfit. Only a return from the card checkout stays here, to confirm it.
- */
-export async function loader({ params, request }: LoaderFunctionArgs) {
-  await restoreSessionOnce();
-  const session = currentSession();
-  const id = params.invoiceId ?? '';
-  // Signed out: the signed-in layout above sends the visitor to sign in and back here.
-  if (!session) return null;
-  if (session.user.role !== 'customer') throw redirect(paths.invoice(id));
-  if (!new URL(request.url).searchParams.has('checkout')) throw redirect(paths.myInvoice(id));
-  return null;
-}
 
 function useWaited(running: boolean): number {
   const [startedAt] = useState(() => Date.now());
@@ -117,10 +102,7 @@ function ReturnOutcome({ status, invoice }: { status: ReturnStatus; invoice: Inv
   }
 }
 
-export function Component() {
-  const { invoiceId = '' } = useParams();
-  const [searchParams] = useSearchParams();
-  const checkout = searchParams.get('checkout');
+function CheckoutReturn({ invoiceId, checkout }: { invoiceId: string; checkout: string }) {
   const [polling, setPolling] = useState(checkout === 'success');
   const waited = useWaited(polling);
   const invoice = useMyInvoice(invoiceId, polling ? POLL_MS : false);
@@ -134,4 +116,18 @@ export function Component() {
   if (invoice.isError) return <QueryError error={invoice.error} onRetry={() => void invoice.refetch()} />;
   if (!invoice.data || !status) return <Skeleton h={320} maw={560} mx="auto" mt="lg" />;
   return <ReturnOutcome status={status} invoice={invoice.data} />;
+}
+
+/**
+ * The e-mail's pay link opens the invoice for whoever signs in: the customer's own page, or the
+ * staff page for the outfit. Only a return from the card checkout stays here, to confirm it.
+ */
+export function Component() {
+  const user = useSessionUserOrThrow();
+  const { invoiceId = '' } = useParams();
+  const [searchParams] = useSearchParams();
+  const checkout = searchParams.get('checkout');
+  if (user.role !== 'customer') return <Navigate to={paths.invoice(invoiceId)} replace />;
+  if (checkout === null) return <Navigate to={paths.myInvoice(invoiceId)} replace />;
+  return <CheckoutReturn invoiceId={invoiceId} checkout={checkout} />;
 }

@@ -3,16 +3,11 @@ import { EmptyState } from '../../../components/EmptyState';
 import { PageHeader } from '../../../components/PageHeader';
 import { QueryError } from '../../../components/QueryError';
 import { useSessionUserOrThrow } from '../../../lib/auth';
-import { queryClient } from '../../../lib/queryClient';
-import { dashboardQueryOptions, useDashboard } from '../api/getDashboard';
+import { useDashboard } from '../api/getDashboard';
 import { cardLink } from '../cardLinks';
 import { ChartCard } from '../components/ChartCard';
 import { StatCard, StatCardSkeleton } from '../components/StatCard';
 
-export function loader() {
-  void queryClient.prefetchQuery(dashboardQueryOptions());
-  return null;
-}
 
 function firstName(name: string): string {
   return name.trim().split(/\s+/)[0] ?? name;

@@ -23,10 +23,9 @@ import { PageHeader } from '../../../components/PageHeader';
 import { QueryError } from '../../../components/QueryError';
 import { useServerForm } from '../../../lib/form';
 import { formatDecimal, formatRate, perAcre } from '../../../lib/money';
-import { queryClient } from '../../../lib/queryClient';
 import { estimateFieldCapacity, type FieldCapacity } from '../api/estimateFieldCapacity';
 import { estimateMachineCost, type MachineCostEstimate } from '../api/estimateMachineCost';
-import { machineClassesQueryOptions, useMachineClasses } from '../api/getMachineClasses';
+import { useMachineClasses } from '../api/getMachineClasses';
 import { CostBreakdownChart } from '../components/CostBreakdownChart';
 import { CostBreakdownTable } from '../components/CostBreakdownTable';
 import { MachineClassSelect } from '../components/MachineClassSelect';
@@ -39,10 +38,6 @@ import {
   type MachineRatePayload,
 } from '../machineRateForm';
 
-export function loader() {
-  void queryClient.prefetchQuery(machineClassesQueryOptions());
-  return null;
-}
 
 const machineRateSchema = z.object({ cost: machineCostRequestSchema, pass: fieldCapacityRequestSchema.optional() });
 

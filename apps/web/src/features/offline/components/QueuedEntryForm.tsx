@@ -1,12 +1,12 @@
 import { useEffect } from 'react';
 import { Button, Group, Stack } from '@mantine/core';
 import { useMutation } from '@tanstack/react-query';
-import { workEntryCreateSchema } from '@hitchbook/shared/schemas/work-entries';
 import { FormErrorAlert } from '../../../components/FormErrorAlert';
 import { useServerForm } from '../../../lib/form';
 import type { NewWorkEntry } from '../../work/api/saveWorkEntry';
 import { EntryFields, type EntryOptions } from '../../work/components/EntryFields';
 import { entryIssuePath, newEntryPayload } from '../../work/entryForm';
+import { loadEntrySchema } from '../../work/entrySchema';
 import type { QueuedEntry } from '../entryQueue';
 import { fixQueuedEntry } from '../phoneQueue';
 import { queuedEntryValues } from '../queuedEntryValues';
@@ -26,7 +26,7 @@ export function QueuedEntryForm({ entry, operatorName, options, onDone }: Queued
   });
   const state = entry.payload.state === 'draft' ? 'draft' : 'submitted';
   const { form, onSubmit, formError, submitting } = useServerForm({
-    schema: workEntryCreateSchema,
+    schema: loadEntrySchema,
     initialValues: queuedEntryValues(entry.payload),
     toPayload: (values) => newEntryPayload(values, entry.clientId, state),
     mutation: fix,

@@ -1,19 +1,18 @@
 import { lazy, Suspense, useState, type ReactNode } from 'react';
 import { Accordion, Button, List, Paper, Select, SimpleGrid, Skeleton, Stack, Text, Title } from '@mantine/core';
 import { IconTags } from '@tabler/icons-react';
-import { useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { useSearchParams } from 'react-router-dom';
 import type { MachineRateRowDto } from '@hitchbook/shared/schemas/reports';
 import { EmptyState } from '../../../components/EmptyState';
 import { PageHeader } from '../../../components/PageHeader';
 import { QueryError } from '../../../components/QueryError';
 import { accessTo } from '../../../lib/areas';
 import { useSessionUserOrThrow } from '../../../lib/auth';
-import { queryClient } from '../../../lib/queryClient';
 import { DownloadButtons } from '../../square-ups/components/DownloadButtons';
 import { downloadReport } from '../api/downloadReport';
-import { customIncomeQueryOptions, useCustomIncome } from '../api/getCustomIncome';
-import { machineHoursQueryOptions, useMachineHours } from '../api/getMachineHours';
-import { machineRatesQueryOptions, useMachineRates } from '../api/getMachineRates';
+import { useCustomIncome } from '../api/getCustomIncome';
+import { useMachineHours } from '../api/getMachineHours';
+import { useMachineRates } from '../api/getMachineRates';
 import { AcceptRatesModal } from '../components/AcceptRatesModal';
 import { CustomIncomeSection } from '../components/CustomIncomeSection';
 import { FieldCostTable } from '../components/FieldCostTable';
@@ -27,13 +26,6 @@ const HoursChart = lazy(() => import('../components/HoursChart'));
 
 const thisYear = () => new Date().getFullYear();
 
-export function loader({ request }: LoaderFunctionArgs) {
-  const year = yearFromParam(new URL(request.url).searchParams.get('year'), thisYear());
-  void queryClient.prefetchQuery(machineRatesQueryOptions(year));
-  void queryClient.prefetchQuery(customIncomeQueryOptions(year));
-  void queryClient.prefetchQuery(machineHoursQueryOptions());
-  return null;
-}
 
 function ChartPanel({ title, hint, children }: { title: string; hint: string; children: ReactNode }) {
   // Clipped, so a chart's hidden tooltip layer never widens the page on a phone.

@@ -9,15 +9,10 @@ import { QueryError } from '../../../components/QueryError';
 import { accessTo } from '../../../lib/areas';
 import { useSessionUserOrThrow } from '../../../lib/auth';
 import { paths } from '../../../lib/paths';
-import { queryClient } from '../../../lib/queryClient';
-import { squareUpsQueryOptions, useSquareUps } from '../api/listSquareUps';
+import { useSquareUps } from '../api/listSquareUps';
 import { NewPeriodModal } from '../components/NewPeriodModal';
 import { StatusBadge } from '../components/StatusBadge';
 
-export function loader() {
-  void queryClient.prefetchQuery(squareUpsQueryOptions());
-  return null;
-}
 
 function PeriodsTable() {
   const periods = useSquareUps();

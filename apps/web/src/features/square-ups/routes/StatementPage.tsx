@@ -1,7 +1,7 @@
 import { lazy, Suspense, useMemo, useState, type ReactNode } from 'react';
 import { Accordion, Alert, Anchor, Button, Group, List, Paper, SimpleGrid, Skeleton, Stack, Text, Title } from '@mantine/core';
 import { IconAlertTriangle, IconLock } from '@tabler/icons-react';
-import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { Link, useParams } from 'react-router-dom';
 import { formatMoney } from '@hitchbook/shared/money';
 import type { SquareUpStatementDto } from '@hitchbook/shared/schemas/square-ups';
 import { PageHeader } from '../../../components/PageHeader';
@@ -9,9 +9,8 @@ import { QueryError } from '../../../components/QueryError';
 import { accessTo } from '../../../lib/areas';
 import { useSessionUserOrThrow } from '../../../lib/auth';
 import { paths } from '../../../lib/paths';
-import { queryClient } from '../../../lib/queryClient';
 import { downloadStatement } from '../api/downloadStatement';
-import { statementQueryOptions, useStatement } from '../api/getStatement';
+import { useStatement } from '../api/getStatement';
 import { ClosePeriodModal } from '../components/ClosePeriodModal';
 import { DownloadButtons } from '../components/DownloadButtons';
 import { HouseholdsTable } from '../components/HouseholdsTable';
@@ -23,10 +22,6 @@ import { UseChargesTable } from '../components/UseChargesTable';
 
 const BalanceChart = lazy(() => import('../components/BalanceChart'));
 
-export function loader({ params }: LoaderFunctionArgs) {
-  if (params.squareUpId) void queryClient.prefetchQuery(statementQueryOptions(params.squareUpId));
-  return null;
-}
 
 function Section({ title, children, testId }: { title: string; children: ReactNode; testId?: string }) {
   return (

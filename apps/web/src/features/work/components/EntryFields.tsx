@@ -1,5 +1,5 @@
 import { useEffect, useState, type ReactNode } from 'react';
-import { Paper, SegmentedControl, Select, SimpleGrid, Stack, Text, TextInput, Textarea, Title } from '@mantine/core';
+import { NativeSelect, Paper, SegmentedControl, SimpleGrid, Stack, Text, TextInput, Textarea, Title } from '@mantine/core';
 import type { UseFormReturnType } from '@mantine/form';
 import type { FieldDto } from '@hitchbook/shared/schemas/fields';
 import type { MachineDto } from '@hitchbook/shared/schemas/machines';
@@ -11,7 +11,7 @@ import { useLastMeterReading } from '../api/lastMeterReading';
 import type { Member } from '../api/listMembers';
 import { hoursReadout, plainDecimal, type EntryFormValues } from '../entryForm';
 import type { LastUsedRig } from '../lastUsed';
-import { fieldPickerData, machinePickerData, workTypePickerData } from '../pickers';
+import { fieldPickerData, machinePickerData, withBlank, workTypePickerData } from '../pickers';
 import { CautionAlerts } from './CautionAlerts';
 
 export interface EntryOptions {
@@ -23,7 +23,8 @@ export interface EntryOptions {
   operators: Member[] | null;
 }
 
-// Glove-sized: every control is at least 50 px tall and read at arm's length.
+// Glove-sized: every control is at least 50 px tall and read at arm's length. The pickers are the phone's
+// own (a wheel or a full-screen list), which a gloved thumb works better than a dropdown drawn on the page.
 const BIG = 'lg';
 
 function Section({ title, children }: { title: string; children: ReactNode }) {
@@ -63,8 +64,8 @@ export function EntryFields({ form, options, operatorName, lastUsed, editing }: 
     // The form object lives as long as the form; only a new reading should refill the start.
   }, [lastReading.data, typed.meterStart]);
 
-  function pickField(id: string | null) {
-    form.setFieldValue('fieldId', id ?? '');
+  function pickField(id: string) {
+    form.setFieldValue('fieldId', id);
     const picked = options.fields.find((f) => f.id === id);
     if (!picked) return;
     if (!typed.acres) {
@@ -84,11 +85,10 @@ export function EntryFields({ form, options, operatorName, lastUsed, editing }: 
         <SimpleGrid cols={{ base: 1, xs: 2 }}>
           <TextInput size={BIG} label="Day of the work" type="date" {...form.getInputProps('workDate')} />
           {options.operators ? (
-            <Select
+            <NativeSelect
               size={BIG}
               label="Operator"
               data={options.operators.map((m) => ({ value: m.userId, label: m.name }))}
-              allowDeselect={false}
               {...form.getInputProps('operatorUserId')}
             />
           ) : (
@@ -98,22 +98,18 @@ export function EntryFields({ form, options, operatorName, lastUsed, editing }: 
       </Section>
 
       <Section title="Where and what">
-        <Select
+        <NativeSelect
           size={BIG}
           label="Field or road stretch"
-          placeholder="Pick where you worked"
-          searchable
-          data={fieldPickerData(options.fields)}
+          data={withBlank(fieldPickerData(options.fields), 'Pick where you worked', { disabled: true })}
           {...form.getInputProps('fieldId')}
-          onChange={pickField}
+          onChange={(event) => pickField(event.currentTarget.value)}
           data-testid="entry-field"
         />
-        <Select
+        <NativeSelect
           size={BIG}
           label="Work"
-          placeholder="Pick the kind of work"
-          searchable
-          data={workTypePickerData(options.workTypes)}
+          data={withBlank(workTypePickerData(options.workTypes), 'Pick the kind of work', { disabled: true })}
           {...form.getInputProps('workTypeId')}
           data-testid="entry-work-type"
         />
@@ -121,23 +117,17 @@ export function EntryFields({ form, options, operatorName, lastUsed, editing }: 
       </Section>
 
       <Section title="Machines">
-        <Select
+        <NativeSelect
           size={BIG}
           label="Tractor or self-propelled machine"
-          placeholder="None"
-          clearable
-          searchable
-          data={machinePickerData(options.machines, 'power', lastUsed.powerMachineId)}
+          data={withBlank(machinePickerData(options.machines, 'power', lastUsed.powerMachineId), 'None')}
           {...form.getInputProps('powerMachineId')}
           data-testid="entry-power-unit"
         />
-        <Select
+        <NativeSelect
           size={BIG}
           label="Implement"
-          placeholder="None"
-          clearable
-          searchable
-          data={machinePickerData(options.machines, 'implement', lastUsed.implementMachineId)}
+          data={withBlank(machinePickerData(options.machines, 'implement', lastUsed.implementMachineId), 'None')}
           {...form.getInputProps('implementMachineId')}
           data-testid="entry-implement"
         />
@@ -217,19 +207,22 @@ export function EntryFields({ form, options, operatorName, lastUsed, editing }: 
       </Section>
 
       <Section title="Bill to">
-        <Select
+        <NativeSelect
           size={BIG}
           label="Who the work is for"
-          placeholder="Pick a household or customer"
-          searchable
-          data={[
-            { group: 'Households', items: households.map((p) => ({ value: p.id, label: p.name })) },
-            { group: 'Customers', items: customers.map((p) => ({ value: p.id, label: p.name })) },
-          ].filter((g) => g.items.length > 0)}
+          data={withBlank(
+            [
+              { group: 'Households', items: households.map((p) => ({ value: p.id, label: p.name })) },
+              { group: 'Customers', items: customers.map((p) => ({ value: p.id, label: p.name })) },
+            ].filter((g) => g.items.length > 0),
+            'Pick a household or customer',
+            { disabled: true },
+          )}
           {...form.getInputProps('billToPartyId')}
-          onChange={(id) => {
+          onChange={(event) => {
+            const id = event.currentTarget.value;
             setTyped((t) => ({ ...t, billTo: true }));
-            form.setFieldValue('billToPartyId', id ?? '');
+            form.setFieldValue('billToPartyId', id);
           }}
           data-testid="entry-bill-to"
         />

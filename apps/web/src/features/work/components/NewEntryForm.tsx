@@ -1,6 +1,5 @@
 import { useRef, useState } from 'react';
 import { Paper, Stack, Title } from '@mantine/core';
-import { workEntryCreateSchema } from '@hitchbook/shared/schemas/work-entries';
 import { FormErrorAlert } from '../../../components/FormErrorAlert';
 import { useServerForm } from '../../../lib/form';
 import { localDateIso } from '../../../lib/localTime';
@@ -8,6 +7,7 @@ import { PHOTO_BUDGET } from '../../offline/photoBudget';
 import { useSaveOrQueueWorkEntry, type SaveOutcome } from '../../offline/phoneQueue';
 import { newClientId } from '../clientId';
 import { blankEntry, entryIssuePath, newEntryPayload } from '../entryForm';
+import { loadEntrySchema } from '../entrySchema';
 import { browserStore, readLastUsed, rememberLastUsed } from '../lastUsed';
 import { EntryActions, type EntryIntent } from './EntryActions';
 import { EntryFields, type EntryOptions } from './EntryFields';
@@ -35,7 +35,7 @@ export function NewEntryForm({ userId, operatorName, options, onSaved }: NewEntr
   picked.current = photos;
   const save = useSaveOrQueueWorkEntry(userId, () => picked.current);
   const { form, onSubmit, formError, submitting } = useServerForm({
-    schema: workEntryCreateSchema,
+    schema: loadEntrySchema,
     initialValues: blankEntry(localDateIso(), userId, lastUsed),
     toPayload: (values) => newEntryPayload(values, clientId, intent.current),
     mutation: save,

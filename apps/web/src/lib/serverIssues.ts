@@ -1,0 +1,45 @@
+import type { ReactNode } from 'react';
+import { isApiError } from './api';
+
+// The same shape as @mantine/form's errors, without loading it: the sign-in page checks its two fields by hand.
+export type FieldErrors = Record<string, ReactNode>;
+
+/** Turns a path in the request body into the path of the form field that holds it. */
+export type IssuePathMap<Values = unknown> = (payloadPath: string, values: Values) => string;
+
+export const samePath: IssuePathMap = (path) => path;
+
+export function hasPath(values: unknown, path: string): boolean {
+  let node: unknown = values;
+  for (const part of path.split('.')) {
+    if (typeof node !== 'object' || node === null || !(part in node)) return false;
+    node = (node as Record<string, unknown>)[part];
+  }
+  return true;
+}
+
+export interface PlacedIssues {
+  fieldErrors: FieldErrors;
+  /** The server's message (when some field is marked) plus every issue no field on this form can show. */
+  banner: string;
+}
+
+/** Sorts a failed request's issues into those a field can show and those only a banner can. */
+export function placeServerIssues<Values>(
+  values: Values,
+  error: unknown,
+  issuePath: IssuePathMap<Values> = samePath,
+): PlacedIssues {
+  if (!isApiError(error)) return { fieldErrors: {}, banner: 'Something went wrong. Try again.' };
+  const fieldErrors: FieldErrors = {};
+  const unplaced: string[] = [];
+  for (const issue of error.issues) {
+    const path = issue.path ? issuePath(issue.path, values) : '';
+    if (path && hasPath(values, path)) fieldErrors[path] ??= issue.message;
+    else unplaced.push(issue.message);
+  }
+  // When no field is marked, a general "check the fields" message would send the user hunting.
+  const lead = Object.keys(fieldErrors).length === 0 && unplaced.length > 0 ? [] : [error.message];
+  return { fieldErrors, banner: [...lead, ...unplaced.filter((m) => m !== error.message)].join(' ') };
+}
+
