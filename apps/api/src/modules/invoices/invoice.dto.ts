@@ -1,13 +1,13 @@
 import type { Invoice, InvoiceLine, Operation, Party, Payment } from '@hitchbook/db';
 import type { InvoiceDto, InvoiceEntryDto, InvoiceSummaryDto, PartySnapshotDto, PaymentDto } from '@hitchbook/shared/schemas/invoices';
-import type { InvoiceSummaryRow } from './invoices.repository.js';
+import type { InvoiceListRow, InvoiceSummaryRow } from './invoices.repository.js';
 import { numberLabel } from './invoice-numbers.js';
 
 export function snapshotOf(p: Pick<Party | Operation, 'name' | 'email' | 'phone' | 'address'>): PartySnapshotDto {
   return { name: p.name, email: p.email ?? null, phone: p.phone ?? null, address: p.address ?? null };
 }
 
-export function toSummaryDto(row: InvoiceSummaryRow): InvoiceSummaryDto {
+export function toSummaryDto(row: InvoiceListRow): InvoiceSummaryDto {
   const i = row.invoice;
   return {
     id: i.id,

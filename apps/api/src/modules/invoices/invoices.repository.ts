@@ -20,6 +20,7 @@ import {
 import type { PgInsertValue, PgUpdateSetSource } from 'drizzle-orm/pg-core';
 import type { InvoiceEntryDto, InvoiceKind, InvoiceState } from '@hitchbook/shared/schemas/invoices';
 import { DB, type DbHandle } from '../../core/database.js';
+import { runPrepared } from '../../core/prepared.js';
 import type { InvoiceScope } from '../customer-portal/invoice-scope.js';
 
 export interface InvoiceSummaryRow {
@@ -61,6 +62,30 @@ const stateSql = sql<InvoiceState>`case
 
 const summaryColumns = { invoice: invoices, partyName: parties.name, credited: creditedSql, balance: balanceSql, state: stateSql };
 
+// A list row carries what the table shows, not the printed snapshots and notes of each document.
+const listedInvoiceColumns = {
+  id: invoices.id,
+  kind: invoices.kind,
+  series: invoices.series,
+  number: invoices.number,
+  partyId: invoices.partyId,
+  status: invoices.status,
+  periodFrom: invoices.periodFrom,
+  periodTo: invoices.periodTo,
+  issueDate: invoices.issueDate,
+  dueDate: invoices.dueDate,
+  termsDays: invoices.termsDays,
+  subtotal: invoices.subtotal,
+  total: invoices.total,
+  amountPaid: invoices.amountPaid,
+  creditOfInvoiceId: invoices.creditOfInvoiceId,
+  sentAt: invoices.sentAt,
+  version: invoices.version,
+  createdAt: invoices.createdAt,
+};
+export type ListedInvoice = Pick<Invoice, keyof typeof listedInvoiceColumns>;
+export type InvoiceListRow = Omit<InvoiceSummaryRow, 'invoice'> & { invoice: ListedInvoice };
+
 const dateOf = sql`coalesce(${invoices.issueDate}, (${invoices.createdAt})::date)`;
 const SORTS: Record<string, SQL[]> = {
   issueDate: [asc(dateOf)],
@@ -88,7 +113,7 @@ function scopeWhere(scope: InvoiceScope): SQL | undefined {
 export class InvoicesRepository {
   constructor(@Inject(DB) private readonly dbh: DbHandle) {}
 
-  async summaries(scope: InvoiceScope, filter: InvoiceListFilter): Promise<{ rows: InvoiceSummaryRow[]; total: number }> {
+  async summaries(scope: InvoiceScope, filter: InvoiceListFilter): Promise<{ rows: InvoiceListRow[]; total: number }> {
     const where = and(
       scopeWhere(scope),
       filter.partyId ? eq(invoices.partyId, filter.partyId) : undefined,
@@ -97,14 +122,21 @@ export class InvoicesRepository {
       filter.from ? gte(dateOf, filter.from) : undefined,
       filter.to ? lte(dateOf, filter.to) : undefined,
     );
-    const from = () => this.dbh.db.select(summaryColumns).from(invoices).innerJoin(parties, and(eq(parties.operationId, invoices.operationId), eq(parties.id, invoices.partyId)));
+    const from = () =>
+      this.dbh.db
+        .select({ ...summaryColumns, invoice: listedInvoiceColumns })
+        .from(invoices)
+        .innerJoin(parties, and(eq(parties.operationId, invoices.operationId), eq(parties.id, invoices.partyId)));
+    // Prepared: planning the standing's subqueries cost more than running them on a page.
     const [rows, totals] = await Promise.all([
-      from()
-        .where(where)
-        .orderBy(...(SORTS[filter.sort] ?? SORTS['-createdAt']!), asc(invoices.id))
-        .limit(filter.limit)
-        .offset(filter.offset),
-      this.dbh.db.select({ n: count() }).from(invoices).where(where),
+      runPrepared(
+        from()
+          .where(where)
+          .orderBy(...(SORTS[filter.sort] ?? SORTS['-createdAt']!), asc(invoices.id))
+          .limit(filter.limit)
+          .offset(filter.offset),
+      ),
+      runPrepared(this.dbh.db.select({ n: count() }).from(invoices).where(where)),
     ]);
     return { rows, total: totals[0]?.n ?? 0 };
   }
