@@ -18,13 +18,15 @@ import { BillingEntriesRepository } from './billing-entries.repository.js';
 import { claimIdempotencyKey, saveIdempotentResult } from './idempotency.js';
 import { snapshotOf } from './invoice.dto.js';
 import { numberLabel, SERIES, takeNextNumber } from './invoice-numbers.js';
-import { InvoiceViews } from './invoice-views.service.js';
+import { InvoiceViews, type KnownParts } from './invoice-views.service.js';
 import { InvoicesRepository } from './invoices.repository.js';
 
 interface Saved {
   invoiceId: string;
   /** False when an earlier request with the same Idempotency-Key did the work. */
   fresh?: boolean;
+  /** What this request read and wrote of the invoice under its lock (absent when replayed). */
+  known?: KnownParts;
 }
 
 function billedEntries(lines: InvoiceLine[]): Array<{ id: string; version: number; label: string }> {
@@ -81,7 +83,8 @@ export class InvoiceIssueService {
         await this.entries.claim(operationId, id, billing, tx);
         const moved = await this.entries.markInvoiced(operationId, invoice.partyId, entries, tx);
         if (moved.length !== entries.length) {
-          const stale = entries.filter((e) => !moved.includes(e.id)).map((e) => e.label);
+          const movedIds = new Set(moved.map((m) => m.id));
+          const stale = entries.filter((e) => !movedIds.has(e.id)).map((e) => e.label);
           throw conflict(`These entries are no longer approved, or changed since the draft was made: ${stale.join('; ')}. Delete this draft and make a new one.`);
         }
         await this.repo.update(
@@ -105,10 +108,10 @@ export class InvoiceIssueService {
           tx,
         );
         if (remembered) await saveIdempotentResult(tx, remembered, { invoiceId: id });
-        return { invoiceId: id, fresh: true };
+        return { invoiceId: id, fresh: true, known: { lines, entries: moved } };
       });
       if (saved.fresh) killPointAfterCommit('invoice-issue');
-      return await this.views.detailOrThrow(wholeOperation(operationId), saved.invoiceId);
+      return await this.views.detailOrThrow(wholeOperation(operationId), saved.invoiceId, undefined, saved.known);
     } catch (err) {
       const pg = pgErrorOf(err);
       if (pg?.code === UNIQUE_VIOLATION && pg.constraint === 'invoice_entries_pkey') {

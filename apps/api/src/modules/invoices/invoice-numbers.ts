@@ -1,4 +1,4 @@
-import { and, eq, sql } from 'drizzle-orm';
+import { sql } from 'drizzle-orm';
 import { invoiceCounters, type Executor } from '@hitchbook/db';
 
 /** Invoices and credit notes are numbered in their own series: INV-0001…, CN-0001…. */
@@ -9,20 +9,15 @@ export function numberLabel(series: string, number: number | null): string | nul
 }
 
 /**
- * Takes the next number of the series inside the caller's transaction. The counter row stays locked
- * until that transaction ends, so issuers take turns, and a rollback gives the number back: the
- * committed numbers run 1, 2, 3… without a gap (a sequence would lose numbers on abort).
+ * Takes the next number of the series inside the caller's transaction, in one statement. The upsert
+ * leaves the counter row locked until that transaction ends, so issuers take turns, and a rollback gives
+ * the number back: the committed numbers run 1, 2, 3… without a gap (a sequence would lose numbers on abort).
  */
 export async function takeNextNumber(tx: Executor, operationId: string, series: string): Promise<number> {
-  await tx.insert(invoiceCounters).values({ operationId, series, nextNumber: 1 }).onConflictDoNothing();
   const [counter] = await tx
-    .select({ next: invoiceCounters.nextNumber })
-    .from(invoiceCounters)
-    .where(and(eq(invoiceCounters.operationId, operationId), eq(invoiceCounters.series, series)))
-    .for('update');
-  await tx
-    .update(invoiceCounters)
-    .set({ nextNumber: sql`${invoiceCounters.nextNumber} + 1` })
-    .where(and(eq(invoiceCounters.operationId, operationId), eq(invoiceCounters.series, series)));
-  return counter!.next;
+    .insert(invoiceCounters)
+    .values({ operationId, series, nextNumber: 2 })
+    .onConflictDoUpdate({ target: [invoiceCounters.operationId, invoiceCounters.series], set: { nextNumber: sql`${invoiceCounters.nextNumber} + 1` } })
+    .returning({ next: invoiceCounters.nextNumber });
+  return counter!.next - 1;
 }

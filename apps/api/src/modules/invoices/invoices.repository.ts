@@ -199,8 +199,8 @@ export class InvoicesRepository {
       .from(workEntries)
       .innerJoin(fields, and(eq(fields.operationId, workEntries.operationId), eq(fields.id, workEntries.fieldId)))
       .innerJoin(workTypes, and(eq(workTypes.operationId, workEntries.operationId), eq(workTypes.id, workEntries.workTypeId)))
-      .where(and(eq(workEntries.operationId, operationId), inArray(workEntries.id, ids)))
-      .orderBy(asc(workEntries.workDate), asc(fields.name));
+      .where(and(eq(workEntries.operationId, operationId), sql`${workEntries.id} = any(${sql.param(ids)}::uuid[])`))
+      .orderBy(asc(workEntries.workDate), asc(fields.name), asc(workEntries.id));
   }
 
   async insert(values: PgInsertValue<typeof invoices>, tx: Executor): Promise<Invoice> {
@@ -221,8 +221,31 @@ export class InvoicesRepository {
     await tx.delete(invoices).where(and(eq(invoices.operationId, operationId), eq(invoices.id, id)));
   }
 
+  /**
+   * All lines travel as one JSON parameter: a parameter per column and line costs more to build than the
+   * insert itself. Decimals stay strings in the JSON and are read by numeric's own input, exactly.
+   */
   async insertLines(operationId: string, invoiceId: string, lines: Array<Omit<NewInvoiceLine, 'operationId' | 'invoiceId' | 'id'>>, tx: Executor): Promise<void> {
-    if (lines.length > 0) await tx.insert(invoiceLines).values(lines.map((l) => ({ ...l, operationId, invoiceId })));
+    if (lines.length === 0) return;
+    const rows = lines.map((l) => ({
+      position: l.position,
+      kind: l.kind,
+      work_entry_id: l.workEntryId ?? null,
+      work_date: l.workDate ?? null,
+      description: l.description,
+      field_name: l.fieldName ?? null,
+      work_type_name: l.workTypeName ?? null,
+      quantity: l.quantity ?? null,
+      unit: l.unit ?? null,
+      rate: l.rate ?? null,
+      amount: l.amount,
+      details: l.details ?? null,
+    }));
+    await tx.execute(sql`
+      insert into invoice_lines (operation_id, invoice_id, position, kind, work_entry_id, work_date, description, field_name, work_type_name, quantity, unit, rate, amount, details)
+      select ${operationId}, ${invoiceId}, l.position, l.kind, l.work_entry_id, l.work_date, l.description, l.field_name, l.work_type_name, l.quantity, l.unit, l.rate, l.amount, l.details
+      from jsonb_to_recordset(${JSON.stringify(rows)}::jsonb) as l(position int, kind text, work_entry_id uuid, work_date date, description text, field_name text,
+        work_type_name text, quantity numeric, unit text, rate numeric, amount numeric, details jsonb)`);
   }
 
   async deleteLines(operationId: string, invoiceId: string, kinds: InvoiceLine['kind'][], tx: Executor): Promise<void> {
