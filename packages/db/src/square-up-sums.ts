@@ -2,6 +2,7 @@ import { sql, type SQL } from 'drizzle-orm';
 import { actualMachineRateOrThrow, type ActualRate, type CostCategory } from '@hitchbook/shared/actual-rate';
 import type { StatementCostGroup, StatementHousehold, StatementShareSet, StatementSums, StatementUseGroup } from '@hitchbook/shared/square-up';
 import type { Executor } from './client.js';
+import { executePrepared } from './prepared.js';
 
 // The sums a square-up statement and a machine's actual rate are made from, in SQL. They live in the
 // data package because the API and the demo seed must compute a statement the same way. Every query is
@@ -53,7 +54,7 @@ export function machineUseRows(operationId: string, bounds: YearBounds, states: 
 
 /** Settled hours and acres of each machine that worked in the year, from the kept sums (machine_work_type_years). */
 export async function machineUseSums(executor: Executor, operationId: string, year: number): Promise<MachineUseSums[]> {
-  const result = await executor.execute<Row<MachineUseSums>>(sql`
+  const result = await executePrepared<Row<MachineUseSums>>(executor, sql`
     select machine_id as "machineId", sum(hours)::text as hours, sum(acres)::text as acres
     from machine_work_type_years
     where operation_id = ${operationId} and year = ${year}
@@ -64,7 +65,7 @@ export async function machineUseSums(executor: Executor, operationId: string, ye
 /** The year's costs, plus improvements of earlier years whose life reaches into it. */
 export async function machineCostSums(executor: Executor, operationId: string, year: number): Promise<CostSums[]> {
   const bounds = yearBounds(year);
-  const result = await executor.execute<Row<CostSums>>(sql`
+  const result = await executePrepared<Row<CostSums>>(executor, sql`
     select machine_id as "machineId", category, ${year}::int as year, null::int as "lifeYears", sum(amount)::text as amount
     from cost_entries
     where operation_id = ${operationId} and category <> 'improvement' and incurred_on between ${bounds.from} and ${bounds.to}
@@ -277,20 +278,20 @@ function uuidArray(ids: readonly string[]): SQL {
 export async function statementSums(executor: Executor, period: PeriodScope): Promise<StatementSums> {
   const { operationId, from, to } = period;
   const [households, costs, uses, pending] = await Promise.all([
-    executor.execute<Row<StatementHousehold>>(sql`
+    executePrepared<Row<StatementHousehold>>(executor, sql`
       select id, name, archived_at is not null as archived from parties
       where operation_id = ${operationId} and kind = 'household' order by name, id`),
-    executor.execute<Row<StatementCostGroup>>(statementCostSumsQuery(period)),
-    executor.execute<Row<StatementUseGroup>>(statementUseSumsQuery(period)),
-    executor.execute<Row<{ n: number }>>(sql`
+    executePrepared<Row<StatementCostGroup>>(executor, statementCostSumsQuery(period)),
+    executePrepared<Row<StatementUseGroup>>(executor, statementUseSumsQuery(period)),
+    executePrepared<Row<{ n: number }>>(executor, sql`
       select count(*)::int as n from work_entries
       where operation_id = ${operationId} and state in ('draft', 'submitted') and work_date between ${from} and ${to}`),
   ]);
   const machineIds = [...new Set([...costs.rows.map((c) => c.machineId), ...uses.rows.map((u) => u.machineId)])];
   const [machines, shares] = await Promise.all([
-    executor.execute<Row<{ id: string; name: string }>>(sql`
+    executePrepared<Row<{ id: string; name: string }>>(executor, sql`
       select id, name from machines where operation_id = ${operationId} and id = any(${uuidArray(machineIds)})`),
-    executor.execute<Row<{ machineId: string; effectiveFrom: string; partyId: string; sharePct: string }>>(sql`
+    executePrepared<Row<{ machineId: string; effectiveFrom: string; partyId: string; sharePct: string }>>(executor, sql`
       select machine_id as "machineId", effective_from::text as "effectiveFrom", party_id as "partyId", share_pct::text as "sharePct"
       from machine_shares where operation_id = ${operationId} and machine_id = any(${uuidArray(machineIds)})
       order by machine_id, effective_from, party_id`),

@@ -1,6 +1,7 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { sql } from 'drizzle-orm';
 import type { Executor } from '@hitchbook/db';
+import { executePrepared } from '@hitchbook/db/prepared';
 import {
   machineCostSums,
   machineUseRows,
@@ -54,7 +55,7 @@ export class MachineYearRepository {
   constructor(@Inject(DB) private readonly dbh: DbHandle) {}
 
   async machines(operationId: string, executor: Executor = this.dbh.db): Promise<MachineRow[]> {
-    const result = await executor.execute<MachineRow>(sql`
+    const result = await executePrepared<MachineRow>(executor, sql`
       select id, name, class_id as "classId", kind, status, year as "modelYear", pto_hp::text as "ptoHp", fuel_type as "fuelType",
              list_price::text as "listPrice", purchase_price::text as "purchasePrice", purchase_date::text as "purchaseDate",
              hours_at_purchase::text as "hoursAtPurchase", planned_years_owned as "plannedYearsOwned",
@@ -76,7 +77,7 @@ export class MachineYearRepository {
   /** What fuel cost per gallon this year, from tickets that recorded gallons: per machine and for the fleet. */
   async fuelPrices(operationId: string, year: number, executor: Executor = this.dbh.db): Promise<FuelPriceSums[]> {
     const bounds = yearBounds(year);
-    const result = await executor.execute<FuelPriceSums>(sql`
+    const result = await executePrepared<FuelPriceSums>(executor, sql`
       select machine_id as "machineId", sum(amount)::text as amount, sum(gallons)::text as gallons
       from cost_entries
       where operation_id = ${operationId} and category = 'fuel' and gallons > 0 and incurred_on between ${bounds.from} and ${bounds.to}
@@ -87,7 +88,7 @@ export class MachineYearRepository {
 
   /** The family sheet (for everyone, not a party override) in force on a day. */
   async familySheetOn(operationId: string, day: string, executor: Executor = this.dbh.db): Promise<FamilySheet | null> {
-    const result = await executor.execute<FamilySheet>(sql`
+    const result = await executePrepared<FamilySheet>(executor, sql`
       select id, name, operator_wage::text as "operatorWage", labor_factor::text as "laborFactor"
       from rate_sheets
       where operation_id = ${operationId} and relationship = 'family' and party_id is null and archived_at is null and effective_from <= ${day}
@@ -102,7 +103,7 @@ export class MachineYearRepository {
    * entries in one pass, rather than looked up entry by entry.
    */
   async invoicedWork(operationId: string, bounds: YearBounds, executor: Executor = this.dbh.db): Promise<Array<{ machineId: string; revenue: string; acres: string; hours: string }>> {
-    const result = await executor.execute<{ machineId: string; revenue: string; acres: string; hours: string }>(sql`
+    const result = await executePrepared<{ machineId: string; revenue: string; acres: string; hours: string }>(executor, sql`
       select u.machine_id as "machineId", sum(b.amount)::text as revenue, coalesce(sum(u.acres), 0)::text as acres, sum(u.hours)::text as hours
       from (${machineUseRows(operationId, bounds, sql`('invoiced')`)}) u
       join (
@@ -122,7 +123,7 @@ export class MachineYearRepository {
    * by the machine's acres of each: what the work would have been billed at.
    */
   async sheetAcreRates(operationId: string, year: number, executor: Executor = this.dbh.db): Promise<Array<{ machineId: string; amount: string; acres: string }>> {
-    const result = await executor.execute<{ machineId: string; amount: string; acres: string }>(sql`
+    const result = await executePrepared<{ machineId: string; amount: string; acres: string }>(executor, sql`
       with sheet as (
         select id from rate_sheets
         where operation_id = ${operationId} and relationship = 'neighbour' and party_id is null and archived_at is null and effective_from <= ${yearBounds(year).to}
@@ -144,7 +145,7 @@ export class MachineYearRepository {
 
   /** Hours per machine per calendar year over every year with entries: the fleet history chart, read on its own route. */
   async hoursByYear(operationId: string, executor: Executor = this.dbh.db): Promise<Array<{ machineId: string; year: number; hours: string }>> {
-    const result = await executor.execute<{ machineId: string; year: number; hours: string }>(sql`
+    const result = await executePrepared<{ machineId: string; year: number; hours: string }>(executor, sql`
       select machine_id as "machineId", year, sum(hours)::text as hours
       from machine_work_type_years
       where operation_id = ${operationId}
@@ -154,7 +155,7 @@ export class MachineYearRepository {
   }
 
   async machineRatesOf(operationId: string, rateSheetId: string, executor: Executor = this.dbh.db): Promise<Map<string, string>> {
-    const result = await executor.execute<{ machineId: string; ratePerHour: string }>(sql`
+    const result = await executePrepared<{ machineId: string; ratePerHour: string }>(executor, sql`
       select machine_id as "machineId", rate_per_hour::text as "ratePerHour"
       from machine_rates where operation_id = ${operationId} and rate_sheet_id = ${rateSheetId}`);
     return new Map(result.rows.map((row) => [row.machineId, row.ratePerHour]));
