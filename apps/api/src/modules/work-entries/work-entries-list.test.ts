@@ -251,6 +251,12 @@ describe('CSV export', () => {
       ['2025-06-15', 'Creek 80', '4.00', '30.000'],
       ['2025-05-02', 'Creek 80', '6.50', '78.500'],
     ]);
+    const submitted = Papa.parse<string[]>((await exportCsv(`?fieldId=${fleet.creek80}&state=submitted,draft`)).text.slice(1), { skipEmptyLines: true }).data;
+    expect(submitted.slice(1).map((r) => [r[0], r[1]])).toEqual([
+      ['2025-06-15', 'submitted'],
+      ['2025-05-02', 'submitted'],
+    ]);
+    expect((await exportCsv('?state=draft')).text.split('\n').filter(Boolean)).toHaveLength(2);
   });
 
   it('neutralises cells a spreadsheet would run as formulas and keeps quotes and commas inside one cell (OWASP CSV Injection)', async () => {

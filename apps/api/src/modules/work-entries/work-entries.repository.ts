@@ -1,10 +1,10 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, eq, gte, inArray, lte, ne, or, sql, type SQL, type SQLWrapper } from 'drizzle-orm';
+import { and, eq, getTableColumns, gte, inArray, lte, ne, or, sql, type Placeholder, type SQL, type SQLWrapper } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import { fields, invoiceEntries, machines, meterReadings, parties, users, workEntries, workTypes, type Executor, type NewWorkEntry, type WorkEntry } from '@hitchbook/db';
 import type { WorkEntryFilter } from '@hitchbook/shared/schemas/work-entries';
 import { DB, type DbHandle } from '../../core/database.js';
-import { runPrepared } from '../../core/prepared.js';
+import { statementName } from '../../core/prepared.js';
 
 const powerMachines = alias(machines, 'power_machines');
 const implementMachines = alias(machines, 'implement_machines');
@@ -105,19 +105,47 @@ function sortJoinsOf(sort: string): SQL {
   }
 }
 
+type Bound = string | Placeholder;
+
+/** What narrows a listing, each as a value or, for a prepared statement, a placeholder of the same name. */
+interface Conditions {
+  operationId: Bound;
+  ownUserId?: Bound;
+  dateFrom?: Bound;
+  dateTo?: Bound;
+  machineId?: Bound;
+  fieldId?: Bound;
+  operatorUserId?: Bound;
+  billToPartyId?: Bound;
+  workTypeId?: Bound;
+  states?: readonly string[] | Placeholder;
+}
+
+function conditionsOf(operationId: string, filter: Omit<WorkEntryFilter, 'sort'>, scope: ListScope): Conditions {
+  const { dateFrom, dateTo, machineId, fieldId, operatorUserId, billToPartyId, workTypeId, state } = filter;
+  const all: Conditions = { operationId, ownUserId: scope.operatorUserId, dateFrom, dateTo, machineId, fieldId, operatorUserId, billToPartyId, workTypeId, states: state };
+  return Object.fromEntries(Object.entries(all).filter(([, v]) => v !== undefined)) as unknown as Conditions;
+}
+
+/** The same conditions with every value replaced by a placeholder named after it. */
+function placeheld(conditions: Conditions): Conditions {
+  return Object.fromEntries(Object.keys(conditions).map((k) => [k, sql.placeholder(k)])) as unknown as Conditions;
+}
+
 /** Every filter is a condition on the entry itself, so the totals need no joins. */
-function whereOf(operationId: string, filter: Omit<WorkEntryFilter, 'sort'>, scope: ListScope): SQL {
+function whereOf(c: Conditions): SQL {
   return and(
-    eq(workEntries.operationId, operationId),
-    scope.operatorUserId ? eq(workEntries.operatorUserId, scope.operatorUserId) : undefined,
-    filter.dateFrom ? gte(workEntries.workDate, filter.dateFrom) : undefined,
-    filter.dateTo ? lte(workEntries.workDate, filter.dateTo) : undefined,
-    filter.machineId ? or(eq(workEntries.powerMachineId, filter.machineId), eq(workEntries.implementMachineId, filter.machineId)) : undefined,
-    filter.fieldId ? eq(workEntries.fieldId, filter.fieldId) : undefined,
-    filter.operatorUserId ? eq(workEntries.operatorUserId, filter.operatorUserId) : undefined,
-    filter.billToPartyId ? eq(workEntries.billToPartyId, filter.billToPartyId) : undefined,
-    filter.workTypeId ? eq(workEntries.workTypeId, filter.workTypeId) : undefined,
-    filter.state ? inArray(workEntries.state, filter.state) : undefined,
+    eq(workEntries.operationId, c.operationId),
+    c.ownUserId ? eq(workEntries.operatorUserId, c.ownUserId) : undefined,
+    c.dateFrom ? gte(workEntries.workDate, c.dateFrom) : undefined,
+    c.dateTo ? lte(workEntries.workDate, c.dateTo) : undefined,
+    c.machineId ? or(eq(workEntries.powerMachineId, c.machineId), eq(workEntries.implementMachineId, c.machineId)) : undefined,
+    c.fieldId ? eq(workEntries.fieldId, c.fieldId) : undefined,
+    c.operatorUserId ? eq(workEntries.operatorUserId, c.operatorUserId) : undefined,
+    c.billToPartyId ? eq(workEntries.billToPartyId, c.billToPartyId) : undefined,
+    c.workTypeId ? eq(workEntries.workTypeId, c.workTypeId) : undefined,
+    // One array parameter, so the statement is the same whichever states are asked for.
+    c.states ? sql`${workEntries.state} = any(${Array.isArray(c.states) ? sql.param(c.states) : c.states}::text[])` : undefined,
   )!;
 }
 
@@ -125,40 +153,41 @@ function whereOf(operationId: string, filter: Omit<WorkEntryFilter, 'sort'>, sco
  * An entry matches a machine as its power unit or as its implement. Each is a separate branch, read
  * from its own machine-ordered index; the implement branch leaves out entries the power branch has.
  */
-function machineBranches(machineId: string): [SQL, SQL] {
+function machineBranches(machineId: Bound): [SQL, SQL] {
   return [
     eq(workEntries.powerMachineId, machineId),
     sql`${workEntries.implementMachineId} = ${machineId} and ${workEntries.powerMachineId} is distinct from ${machineId}`,
   ];
 }
 
-/** The ids of one page in the list's order. */
-function pageIds(operationId: string, filter: WorkEntryFilter, scope: ListScope, window: ListWindow): SQL {
-  const keys = sortKeysOf(filter.sort);
-  const from = sql`${workEntries}${sortJoinsOf(filter.sort)}`;
-  if (!filter.machineId) {
-    return sql`select ${workEntries.id} from ${from} where ${whereOf(operationId, filter, scope)} order by ${orderOf(keys)} limit ${window.limit} offset ${window.offset}`;
+/** The ids of one page in the list's order; `limit`, `offset` and `reach` (their sum) are placeholders. */
+function pageIds(c: Conditions, sort: string): SQL {
+  const keys = sortKeysOf(sort);
+  const from = sql`${workEntries}${sortJoinsOf(sort)}`;
+  const [limit, offset] = [sql.placeholder('limit'), sql.placeholder('offset')];
+  if (!c.machineId) {
+    return sql`select ${workEntries.id} from ${from} where ${whereOf(c)} order by ${orderOf(keys)} limit ${limit} offset ${offset}`;
   }
   // Each branch stops after the rows the page can reach; the page is then cut from the two merged.
-  const others = whereOf(operationId, { ...filter, machineId: undefined }, scope);
+  const others = whereOf({ ...c, machineId: undefined });
   const columns = sql.join(
     keys.map((k, i) => sql`${k.expr} as ${sql.identifier(`k${i}`)}`),
     sql`, `,
   );
-  const branches = machineBranches(filter.machineId).map(
-    (machine) => sql`(select ${columns} from ${from} where ${others} and ${machine} order by ${orderOf(keys)} limit ${window.offset + window.limit})`,
+  const branches = machineBranches(c.machineId).map(
+    (machine) => sql`(select ${columns} from ${from} where ${others} and ${machine} order by ${orderOf(keys)} limit ${sql.placeholder('reach')})`,
   );
   const merged = keys.map((k, i) => ({ expr: sql`branch.${sql.identifier(`k${i}`)}`, dir: k.dir }));
-  return sql`select ${merged.at(-1)!.expr} from (${sql.join(branches, sql` union all `)}) as branch order by ${orderOf(merged)} limit ${window.limit} offset ${window.offset}`;
+  return sql`select ${merged.at(-1)!.expr} from (${sql.join(branches, sql` union all `)}) as branch order by ${orderOf(merged)} limit ${limit} offset ${offset}`;
 }
 
 /** The quantities of every matching entry, for the totals; with a machine, the union of its two branches. */
-function matchingQuantities(operationId: string, filter: WorkEntryFilter, scope: ListScope): SQL {
+function matchingQuantities(c: Conditions): SQL {
   const quantities = sql`select ${workEntries.hours}, ${workEntries.acres}, ${workEntries.miles} from ${workEntries}`;
-  if (!filter.machineId) return sql`${quantities} where ${whereOf(operationId, filter, scope)}`;
-  const others = whereOf(operationId, { ...filter, machineId: undefined }, scope);
+  if (!c.machineId) return sql`${quantities} where ${whereOf(c)}`;
+  const others = whereOf({ ...c, machineId: undefined });
   return sql.join(
-    machineBranches(filter.machineId).map((machine) => sql`${quantities} where ${others} and ${machine}`),
+    machineBranches(c.machineId).map((machine) => sql`${quantities} where ${others} and ${machine}`),
     sql` union all `,
   );
 }
@@ -303,31 +332,49 @@ export class WorkEntriesRepository {
   /**
    * A page of the table and its totals. The page's ids are picked first, from the entry columns (and the
    * one table a name sort needs), so the names are looked up for those rows only and not for every
-   * entry that matches; both statements are prepared, their plans kept per connection.
+   * entry that matches. Both statements are built once for each combination of filters and sort, with
+   * placeholders for the values, and prepared, so neither drizzle nor PostgreSQL plans them again.
    */
   async list(operationId: string, filter: WorkEntryFilter, scope: ListScope, window: ListWindow): Promise<{ rows: WorkEntryView[]; total: number; totals: { hours: string; acres: string; miles: string } }> {
-    const page = sql`unnest(array(${pageIds(operationId, filter, scope, window)})) with ordinality as page(id, pos)`;
-    const [rows, [sums]] = await Promise.all([
-      runPrepared(
-        this.dbh.db
-          .select({ entry: workEntries, ...pageNames })
-          .from(workEntries)
-          .innerJoin(page, sql`page.id = ${workEntries.id}`)
-          .where(eq(workEntries.operationId, operationId))
-          .orderBy(sql`page.pos`),
-      ),
-      runPrepared(
-        this.dbh.db
-          .select({
-            total: sql<number>`count(*)::int`,
-            hours: sql<string>`coalesce(sum(matching.hours), 0)::numeric(14,2)::text`,
-            acres: sql<string>`coalesce(sum(matching.acres), 0)::numeric(16,3)::text`,
-            miles: sql<string>`coalesce(sum(matching.miles), 0)::numeric(14,3)::text`,
-          })
-          .from(sql`(${matchingQuantities(operationId, filter, scope)}) as matching`),
-      ),
-    ]);
-    return { rows: rows.map(flatten), total: sums!.total, totals: { hours: sums!.hours, acres: sums!.acres, miles: sums!.miles } };
+    const conditions = conditionsOf(operationId, filter, scope);
+    const statements = this.listStatements(conditions, filter.sort);
+    const values = { ...conditions, limit: window.limit, offset: window.offset, reach: window.offset + window.limit };
+    const [rows, [sums]] = await Promise.all([statements.page.execute(values), statements.totals.execute(values)]);
+    return { rows, total: sums!.total, totals: { hours: sums!.hours, acres: sums!.acres, miles: sums!.miles } };
+  }
+
+  private readonly listStatementCache = new Map<string, ReturnType<WorkEntriesRepository['prepareList']>>();
+
+  private listStatements(conditions: Conditions, sort: string): ReturnType<WorkEntriesRepository['prepareList']> {
+    const shape = `${sort}:${Object.keys(conditions).join(',')}`;
+    let statements = this.listStatementCache.get(shape);
+    if (!statements) {
+      statements = this.prepareList(placeheld(conditions), sort);
+      this.listStatementCache.set(shape, statements);
+    }
+    return statements;
+  }
+
+  private prepareList(c: Conditions, sort: string) {
+    const page = sql`unnest(array(${pageIds(c, sort)})) with ordinality as page(id, pos)`;
+    const pageQuery = this.dbh.db
+      .select({ ...getTableColumns(workEntries), ...pageNames })
+      .from(workEntries)
+      .innerJoin(page, sql`page.id = ${workEntries.id}`)
+      .where(eq(workEntries.operationId, c.operationId))
+      .orderBy(sql`page.pos`);
+    const totalsQuery = this.dbh.db
+      .select({
+        total: sql<number>`count(*)::int`,
+        hours: sql<string>`coalesce(sum(matching.hours), 0)::numeric(14,2)::text`,
+        acres: sql<string>`coalesce(sum(matching.acres), 0)::numeric(16,3)::text`,
+        miles: sql<string>`coalesce(sum(matching.miles), 0)::numeric(14,3)::text`,
+      })
+      .from(sql`(${matchingQuantities(c)}) as matching`);
+    return {
+      page: pageQuery.prepare(statementName(pageQuery.toSQL().sql)),
+      totals: totalsQuery.prepare(statementName(totalsQuery.toSQL().sql)),
+    };
   }
 
   /** The ids of every matching entry in table order: an export reads them in batches by id. */
@@ -339,7 +386,7 @@ export class WorkEntriesRepository {
       .innerJoin(users, eq(users.id, workEntries.operatorUserId))
       .leftJoin(powerMachines, and(eq(powerMachines.operationId, workEntries.operationId), eq(powerMachines.id, workEntries.powerMachineId)))
       .leftJoin(implementMachines, and(eq(implementMachines.operationId, workEntries.operationId), eq(implementMachines.id, workEntries.implementMachineId)))
-      .where(whereOf(operationId, filter, scope))
+      .where(whereOf(conditionsOf(operationId, filter, scope)))
       .orderBy(orderOf(sortKeysOf(filter.sort)))
       .limit(cap);
     return rows.map((r) => r.id);
