@@ -37,9 +37,15 @@ export default defineConfig(({ mode }) => ({
     chunkSizeWarningLimit: 900,
     rolldownOptions: {
       output: {
-        // Mantine's own core (provider, factories, styles API) is under every component; left to the
-        // splitter it scatters over many small chunks that compress worse than one.
-        codeSplitting: { groups: [{ name: 'mantine-core', test: /@mantine[\\/]core[\\/]esm[\\/](core|components[\\/](Input|InputBase|TextInput|PasswordInput|ActionIcon|Anchor|UnstyledButton|Loader|Transition|CloseButton|Alert|Text|Button|Stack|Title|Group|Paper|Center|Container|ThemeIcon))[\\/]/ }] },
+        // Mantine's own core (provider, factories, styles API) is under every component, and the inputs, text
+        // and buttons are on the sign-in page and nearly every other; TanStack Query is under every signed-in
+        // page. Left to the splitter each scatters over many small chunks that compress worse than one.
+        codeSplitting: {
+          groups: [
+            { name: 'mantine-core', test: /@mantine[\\/]core[\\/]esm[\\/](core|components[\\/](Input|InputBase|TextInput|PasswordInput|ActionIcon|Anchor|UnstyledButton|Loader|Transition|CloseButton|Alert|Text|Button|Stack|Title|Group|Paper|Center|Container|ThemeIcon))[\\/]/ },
+            { name: 'query', test: /@tanstack[\\/](query-core|react-query)[\\/]/ },
+          ],
+        },
       },
     },
   },

@@ -2,6 +2,7 @@ import type { Decimal } from 'decimal.js';
 import { fixed, parseDecimalOrThrow, type DecimalInput } from './decimal.js';
 import { acresPerHour, fieldOperationOrThrow } from './field-capacity.js';
 import { MACHINE_CLASS_IDS, machineClassOrThrow } from './machine-classes.js';
+import { LONG_ENTRY_HOURS } from './work-entry-limits.js';
 
 // Plausibility checks of a logged work entry. They never refuse an entry: each
 // finding is a warning the operator or the approving partner looks at.
@@ -13,8 +14,7 @@ export interface WorkEntryWarning {
   message: string;
 }
 
-/** Longer than this in one entry is possible (harvest) but worth a second look. */
-export const LONG_ENTRY_HOURS = 16;
+export { LONG_ENTRY_HOURS };
 
 export interface CheckedMachine {
   id: string;

@@ -122,6 +122,12 @@ describe('web bundle split', () => {
     expect(seen).toContain('@mantine/notifications');
   });
 
+  it('the cab form works out its hours without decimal.js', () => {
+    expect(heavySourcesIn(pageChunks(CAB_FORM), /node_modules\/(decimal\.js)\//)).toEqual([]);
+    // The entries table, on the same data, does load it: the check reads the source maps rather than nothing.
+    expect(heavySourcesIn(pageChunks(['src/app/layout/AppLayout.tsx', 'src/features/work/routes/WorkEntriesPage.tsx']), /node_modules\/(decimal\.js)\//)).not.toEqual([]);
+  });
+
   it("ships React Router's production build", () => {
     const every = new Set(Object.keys(manifest));
     expect(heavySourcesIn(every, /node_modules\/(react-router\/dist\/production)\//)).not.toEqual([]);

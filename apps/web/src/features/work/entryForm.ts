@@ -1,10 +1,9 @@
-import { Decimal } from 'decimal.js';
-import { isDecimalString } from '@hitchbook/shared/decimal';
 import type { WorkEntryDto, WorkEntryState } from '@hitchbook/shared/schemas/work-entries';
-import { LONG_ENTRY_HOURS } from '@hitchbook/shared/work-entry-checks';
+import { LONG_ENTRY_HOURS } from '@hitchbook/shared/work-entry-limits';
 import { localInstantIso, localParts } from '../../lib/localTime';
 import type { NewWorkEntry } from './api/saveWorkEntry';
 import type { WorkEntryChange } from './api/updateWorkEntry';
+import { isQuantity, meterHours, minutesAsHours, plainQuantity, typedHours, type Hours } from './quantity';
 
 /** How the hours are given: read off the hour meter, from the clock, or typed as hours. */
 export type TimingMode = 'meter' | 'clock' | 'hours';
@@ -58,7 +57,7 @@ const text = (value: string | null) => value ?? '';
 
 /** A stored quantity ("61.200") as a person would type it ("61.2"), to prefill a field. */
 export function plainDecimal(value: string): string {
-  return isDecimalString(value) ? new Decimal(value).toString() : value;
+  return plainQuantity(value);
 }
 
 /** A stored entry back into the form, choosing the timing it was logged with. */
@@ -99,9 +98,9 @@ const minutesOf = (time: string) => {
   return m ? Number(m[1]) * 60 + Number(m[2]) : null;
 };
 
-function readout(hours: Decimal | null, problem: string | null, places: number): HoursReadout {
+function readout(hours: Hours | null, problem: string | null): HoursReadout {
   if (!hours) return { hours: null, problem, long: false };
-  return { hours: hours.toFixed(places), problem, long: hours.gt(LONG_ENTRY_HOURS) };
+  return { hours: hours.fixed, problem, long: hours.over(LONG_ENTRY_HOURS) };
 }
 
 /** The hours shown live under the timing inputs, computed exactly as the server will. */
@@ -109,20 +108,20 @@ export function hoursReadout(values: Pick<EntryFormValues, 'timing' | 'meterStar
   if (values.timing === 'meter') {
     const start = values.meterStart.trim();
     const end = values.meterEnd.trim();
-    if (!isDecimalString(start) || !isDecimalString(end)) return readout(null, null, 1);
-    const diff = new Decimal(end).minus(start);
-    if (diff.lt(0)) return readout(null, `The meter end ${end} is below the start ${start}.`, 1);
-    return readout(diff, null, 1);
+    if (!isQuantity(start) || !isQuantity(end)) return readout(null, null);
+    const diff = meterHours(start, end, 1);
+    if (diff.negative) return readout(null, `The meter end ${end} is below the start ${start}.`);
+    return readout(diff, null);
   }
   if (values.timing === 'clock') {
     const start = minutesOf(values.startTime);
     const end = minutesOf(values.endTime);
-    if (start === null || end === null) return readout(null, null, 2);
-    if (end < start) return readout(null, 'The end time is before the start time; log work past midnight on the next day.', 2);
-    return readout(new Decimal(end - start).div(60), null, 2);
+    if (start === null || end === null) return readout(null, null);
+    if (end < start) return readout(null, 'The end time is before the start time; log work past midnight on the next day.');
+    return readout(minutesAsHours(end - start, 2), null);
   }
   const typed = values.hours.trim();
-  return isDecimalString(typed) ? readout(new Decimal(typed), null, 2) : readout(null, null, 2);
+  return isQuantity(typed) ? readout(typedHours(typed, 2), null) : readout(null, null);
 }
 
 const orNull = (value: string) => (value.trim() ? value.trim() : null);

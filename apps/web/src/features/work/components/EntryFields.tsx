@@ -5,13 +5,13 @@ import type { FieldDto } from '@hitchbook/shared/schemas/fields';
 import type { MachineDto } from '@hitchbook/shared/schemas/machines';
 import type { WorkTypeDto } from '@hitchbook/shared/schemas/work-types';
 import { DecimalInput } from '../../../components/DecimalInput';
-import { formatDecimal } from '../../../lib/money';
 import type { BillToParty } from '../api/listBillToParties';
 import { useLastMeterReading } from '../api/lastMeterReading';
 import type { Member } from '../api/listMembers';
 import { hoursReadout, plainDecimal, type EntryFormValues } from '../entryForm';
 import type { LastUsedRig } from '../lastUsed';
 import { fieldPickerData, machinePickerData, withBlank, workTypePickerData } from '../pickers';
+import { formatQuantity } from '../quantity';
 import { CautionAlerts } from './CautionAlerts';
 
 export interface EntryOptions {
@@ -173,7 +173,7 @@ export function EntryFields({ form, options, operatorName, lastUsed, editing }: 
         )}
         {values.timing === 'hours' && <DecimalInput size={BIG} label="Machine hours" unit="h" {...form.getInputProps('hours')} />}
         <Text size="xl" fw={700} aria-live="polite" data-testid="hours-readout">
-          {readout.hours ? `${formatDecimal(readout.hours, values.timing === 'meter' ? 1 : 2)} h` : '— h'}
+          {readout.hours ? `${formatQuantity(readout.hours, values.timing === 'meter' ? 1 : 2)} h` : '— h'}
         </Text>
         {readout.problem && (
           <Text c="red.8" fw={600} role="alert">

@@ -2,7 +2,7 @@ import type { ReactNode } from 'react';
 import { Group, Paper, Stack, Text, ThemeIcon, Title } from '@mantine/core';
 import { IconCheck } from '@tabler/icons-react';
 import type { WorkEntryWithWarnings } from '@hitchbook/shared/schemas/work-entries';
-import { formatDecimal } from '../../../lib/money';
+import { formatQuantity } from '../quantity';
 import { EntryWarnings } from './EntryWarnings';
 
 /** What was stored, in a line an operator can check at a glance, with the server's second looks. */
@@ -23,8 +23,8 @@ export function SavedEntryPanel({ entry, children }: { entry: WorkEntryWithWarni
               {entry.workDate}: {entry.workTypeName} on {entry.fieldName}
             </Text>
             <Text size="lg" fw={700}>
-              {formatDecimal(entry.hours, 2)} h{entry.acres ? ` · ${formatDecimal(entry.acres, 2)} ac` : ''}
-              {entry.miles ? ` · ${formatDecimal(entry.miles, 2)} mi` : ''}
+              {formatQuantity(entry.hours, 2)} h{entry.acres ? ` · ${formatQuantity(entry.acres, 2)} ac` : ''}
+              {entry.miles ? ` · ${formatQuantity(entry.miles, 2)} mi` : ''}
             </Text>
             {machines && <Text c="dimmed">{machines}</Text>}
           </Stack>
