@@ -3,11 +3,12 @@
 // work-entry form need before they can render, against a bare React + Mantine page built the same way.
 //
 // Measured from the Vite manifest, not by loading the pages in a browser: a page is the entry chunk, the
-// lazy modules of its route chain, what the entry itself imports lazily on every page (the toast host, the
-// service worker client), and every chunk those import statically. That needs no API, database or browser,
+// lazy modules of its route chain, what the entry itself imports lazily on every page (the service worker
+// client), and every chunk those import statically. That needs no API, database or browser,
 // gives the same bytes on every run, and names the chunks, so a regression points at its cause. Checked
 // against Chromium loading both pages with the service worker blocked: the same files, the same bytes.
-// What a page imports only on a user's action (a dialog, a chart drawn later) is not counted.
+// What a page imports only on a user's action (a dialog, a chart drawn later) or fetches once it is drawn (the
+// cab form's zod schema, the user menu's dropdown, the toast host) is not counted.
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
