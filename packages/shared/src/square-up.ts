@@ -6,7 +6,6 @@ import {
   useChargeAsCostOrThrow,
   type OwnershipShare,
   type ShareBasis,
-  type SharedCost,
 } from './cost-sharing.js';
 import { Dec, fixed, parseDecimalOrThrow } from './decimal.js';
 import { toMoneyString } from './money.js';
@@ -24,7 +23,7 @@ import type {
   StatementWarningCode,
   StatementWarningDto,
 } from './schemas/square-ups.js';
-import { squareUpOrThrow } from './settlement.js';
+import { settleBalancesOrThrow } from './settlement.js';
 
 // A period's square-up statement from figures already summed by the database: costs grouped by
 // machine, kind, share set and payer; machine use grouped by machine, household, share set and rate.
@@ -190,6 +189,16 @@ interface PoolDraft {
   costs: StatementCostGroup[];
 }
 
+function groupByMachine<T extends { machineId: string }>(rows: readonly T[]): Map<string, T[]> {
+  const by = new Map<string, T[]>();
+  for (const row of rows) {
+    const list = by.get(row.machineId);
+    if (list) list.push(row);
+    else by.set(row.machineId, [row]);
+  }
+  return by;
+}
+
 function splits(amounts: ReadonlyArray<{ householdId: string; amount: Decimal }>): StatementSplitDto[] {
   return amounts.map((part) => ({ householdId: part.householdId, amount: toMoneyString(part.amount) }));
 }
@@ -203,18 +212,19 @@ export function buildSquareUpStatementOrThrow(input: StatementInput): StatementF
   const warnings = new Warnings();
   const sets = usableShareSets(input, new Map(householdIds.map((id, index) => [id, index])), warnings);
   const tallies = new Map(householdIds.map((id) => [id, { paid: new Dec(0), share: new Dec(0), useCharged: new Dec(0), useCredited: new Dec(0) } as Tally]));
-  const engineCosts: SharedCost[] = [];
   const machineRows: StatementMachineDto[] = [];
   const useCharges: StatementUseChargeDto[] = [];
 
-  const involved = new Set([...input.costs.map((c) => c.machineId), ...input.uses.map((u) => u.machineId)]);
+  const usesBy = groupByMachine(input.uses);
+  const costsBy = groupByMachine(input.costs);
+  const involved = new Set([...costsBy.keys(), ...usesBy.keys()]);
   const ordered = [...involved].sort((a, b) => machineName(a).localeCompare(machineName(b)) || a.localeCompare(b));
 
   for (const machineId of ordered) {
     const ownerHours = new Map<string, Decimal>();
     let otherHours = new Dec(0);
     const chargeable: Array<StatementUseGroup & { owners: OwnershipShare[] }> = [];
-    for (const use of input.uses.filter((u) => u.machineId === machineId)) {
+    for (const use of usesBy.get(machineId) ?? []) {
       const hours = parseDecimalOrThrow(use.hours, 'hours');
       const owners = use.shareSetFrom === null ? undefined : sets.get(shareKey(machineId, use.shareSetFrom));
       if (owners === undefined) {
@@ -234,7 +244,7 @@ export function buildSquareUpStatementOrThrow(input: StatementInput): StatementF
     const pools = new Map<string, PoolDraft>();
     let fixedCosts = new Dec(0);
     let operatingCosts = new Dec(0);
-    for (const cost of input.costs.filter((c) => c.machineId === machineId)) {
+    for (const cost of costsBy.get(machineId) ?? []) {
       const amount = parseDecimalOrThrow(cost.amount, 'amount');
       if (cost.paidByPartyId === null || !householdSet.has(cost.paidByPartyId)) {
         warnings.add('cost-without-payer', machineId, '', { amount, entries: cost.entries });
@@ -272,7 +282,6 @@ export function buildSquareUpStatementOrThrow(input: StatementInput): StatementF
         pool.costs.map((cost) => ({ label: machineName(machineId), amount: cost.amount, paidBy: { [cost.paidByPartyId!]: cost.amount } })),
         pool.basis,
       );
-      engineCosts.push(shared);
       const split = splitCostOrThrow(shared.amount, shared.basis);
       const paid = householdIds.filter((id) => shared.paidBy[id] !== undefined).map((id) => ({ householdId: id, amount: parseDecimalOrThrow(shared.paidBy[id]!) }));
       for (const part of paid) tallies.get(part.householdId)!.paid = tallies.get(part.householdId)!.paid.plus(part.amount);
@@ -296,7 +305,6 @@ export function buildSquareUpStatementOrThrow(input: StatementInput): StatementF
         continue;
       }
       const charge = useChargeAsCostOrThrow({ label: `${machineName(machineId)} use`, usedBy: use.householdId, hours: use.hours, hourlyRate: rate, owners: use.owners });
-      engineCosts.push(charge);
       const amount = parseDecimalOrThrow(charge.amount);
       const credits = use.owners.map((owner) => ({ householdId: owner.householdId, amount: parseDecimalOrThrow(charge.paidBy[owner.householdId] ?? 0) }));
       tallies.get(use.householdId)!.useCharged = tallies.get(use.householdId)!.useCharged.plus(amount);
@@ -326,8 +334,13 @@ export function buildSquareUpStatementOrThrow(input: StatementInput): StatementF
     });
   }
 
-  const settled = squareUpOrThrow(householdIds, engineCosts);
-  const balances = new Map(settled.households.map((row) => [row.householdId, row.balance]));
+  // Each pool's payments and split, and each use charge's credits and charge, add up to that cost, so the
+  // tallies' balances sum to zero to the cent: the same balances the cost-sharing engine gives those costs.
+  const balances = new Map(householdIds.map((id) => {
+    const tally = tallies.get(id)!;
+    return [id, tally.paid.minus(tally.share).plus(tally.useCredited).minus(tally.useCharged)];
+  }));
+  const settled = { transfers: settleBalancesOrThrow(householdIds.map((id) => ({ householdId: id, balance: balances.get(id)! }))) };
   const households = input.households
     .map((h) => ({ h, tally: tallies.get(h.id)!, balance: balances.get(h.id)! }))
     .filter(({ h, tally, balance }) => !h.archived || !(tally.paid.isZero() && tally.share.isZero() && tally.useCharged.isZero() && tally.useCredited.isZero() && balance.isZero()))

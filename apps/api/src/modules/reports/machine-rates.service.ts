@@ -82,11 +82,13 @@ export class MachineRatesService {
       this.repo.costSums(operationId, year, executor),
     ]);
     const useBy = new Map(uses.map((use) => [use.machineId, use]));
+    const costsBy = new Map<string, CostSums[]>();
+    for (const cost of costs) costsBy.set(cost.machineId, [...(costsBy.get(cost.machineId) ?? []), cost]);
     return machines.map((machine) => ({
       machine,
       hours: useBy.get(machine.id)?.hours ?? '0',
       acres: useBy.get(machine.id)?.acres ?? '0',
-      costs: costs.filter((cost) => cost.machineId === machine.id),
+      costs: costsBy.get(machine.id) ?? [],
     }));
   }
 
@@ -122,11 +124,11 @@ export class MachineRatesService {
       this.repo.sheetAcreRates(operationId, year, executor),
     ]);
     const currentRates = sheet ? await this.repo.machineRatesOf(operationId, sheet.id, executor) : new Map<string, string>();
-    const fuelPrice = (machineId: string | null) => {
-      const row = fuel.find((f) => f.machineId === machineId);
-      return row ? fixed(new Dec(row.amount).div(row.gallons), 3) : null;
-    };
+    const fuelPrices = new Map(fuel.map((row) => [row.machineId, fixed(new Dec(row.amount).div(row.gallons), 3)]));
+    const fuelPrice = (machineId: string | null) => fuelPrices.get(machineId) ?? null;
     const fleetFuelPrice = fuelPrice(null);
+    const invoicedBy = new Map(invoiced.map((row) => [row.machineId, row]));
+    const sheetRatesBy = new Map(sheetRates.map((row) => [row.machineId, row]));
 
     const machines: MachineRateRowDto[] = [];
     for (const row of rows) {
@@ -145,7 +147,7 @@ export class MachineRatesService {
         familySheet: sheet,
       });
       const comparison = actual.perHour && estimate.available ? compareWithEstimate(actual.perHour, estimate.estimate.perHour) : null;
-      const customRate = this.customRate(machine.id, invoiced, sheetRates);
+      const customRate = this.customRate(invoicedBy.get(machine.id), sheetRatesBy.get(machine.id));
       const breakEven = this.breakEven(row, actual.perYear, estimate, customRate);
       const classId = machine.classId as MachineClassId;
       machines.push({
@@ -205,16 +207,10 @@ export class MachineRatesService {
     return machineRatesPdf(await this.report(operationId, assumptions), operationName);
   }
 
-  private customRate(
-    machineId: string,
-    invoiced: ReadonlyArray<{ machineId: string; revenue: string; acres: string; hours: string }>,
-    sheetRates: ReadonlyArray<{ machineId: string; amount: string; acres: string }>,
-  ): CustomRateDto {
-    const billed = invoiced.find((row) => row.machineId === machineId);
+  private customRate(billed: { revenue: string; acres: string; hours: string } | undefined, sheet: { amount: string; acres: string } | undefined): CustomRateDto {
     if (billed) {
       return { source: 'invoices', perAcre: money(ratio(billed.revenue, billed.acres)), perHour: money(ratio(billed.revenue, billed.hours)), revenue: toMoneyString(billed.revenue) };
     }
-    const sheet = sheetRates.find((row) => row.machineId === machineId);
     const perAcre = sheet ? ratio(sheet.amount, sheet.acres) : null;
     return perAcre ? { source: 'rate-sheet', perAcre: toMoneyString(perAcre), perHour: null, revenue: null } : { source: null, perAcre: null, perHour: null, revenue: null };
   }
