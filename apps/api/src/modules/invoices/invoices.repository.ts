@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, count, desc, eq, gte, inArray, isNotNull, lte, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, gte, inArray, isNotNull, lte, sql, type Placeholder, type SQL } from 'drizzle-orm';
 import {
   fields,
   invoiceLines,
@@ -20,7 +20,7 @@ import {
 import type { PgInsertValue, PgUpdateSetSource } from 'drizzle-orm/pg-core';
 import type { InvoiceEntryDto, InvoiceKind, InvoiceState } from '@hitchbook/shared/schemas/invoices';
 import { DB, type DbHandle } from '../../core/database.js';
-import { runPrepared } from '../../core/prepared.js';
+import { statementName } from '../../core/prepared.js';
 import type { InvoiceScope } from '../customer-portal/invoice-scope.js';
 
 export interface InvoiceSummaryRow {
@@ -100,7 +100,8 @@ const SORTS: Record<string, SQL[]> = {
   '-createdAt': [desc(invoices.createdAt)],
 };
 
-function scopeWhere(scope: InvoiceScope): SQL | undefined {
+/** The scope's conditions; its ids may be placeholders, for a statement prepared for every caller of that kind. */
+function scopeWhere(scope: { operationId: string | Placeholder; partyId: string | Placeholder | null; issuedOnly: boolean }): SQL | undefined {
   return and(
     eq(invoices.operationId, scope.operationId),
     scope.partyId ? eq(invoices.partyId, scope.partyId) : undefined,
@@ -113,32 +114,55 @@ function scopeWhere(scope: InvoiceScope): SQL | undefined {
 export class InvoicesRepository {
   constructor(@Inject(DB) private readonly dbh: DbHandle) {}
 
+  /**
+   * A page of invoices and their count. The statements are built once for each combination of scope,
+   * filters and sort, with placeholders for the values, and prepared: planning the standing's
+   * subqueries cost more than running them on a page.
+   */
   async summaries(scope: InvoiceScope, filter: InvoiceListFilter): Promise<{ rows: InvoiceListRow[]; total: number }> {
-    const where = and(
-      scopeWhere(scope),
-      filter.partyId ? eq(invoices.partyId, filter.partyId) : undefined,
-      filter.kind ? eq(invoices.kind, filter.kind) : undefined,
-      filter.states ? inArray(stateSql, filter.states) : undefined,
-      filter.from ? gte(dateOf, filter.from) : undefined,
-      filter.to ? lte(dateOf, filter.to) : undefined,
-    );
-    const from = () =>
-      this.dbh.db
-        .select({ ...summaryColumns, invoice: listedInvoiceColumns })
-        .from(invoices)
-        .innerJoin(parties, and(eq(parties.operationId, invoices.operationId), eq(parties.id, invoices.partyId)));
-    // Prepared: planning the standing's subqueries cost more than running them on a page.
-    const [rows, totals] = await Promise.all([
-      runPrepared(
-        from()
-          .where(where)
-          .orderBy(...(SORTS[filter.sort] ?? SORTS['-createdAt']!), asc(invoices.id))
-          .limit(filter.limit)
-          .offset(filter.offset),
-      ),
-      runPrepared(this.dbh.db.select({ n: count() }).from(invoices).where(where)),
-    ]);
+    const given = {
+      operationId: scope.operationId,
+      scopePartyId: scope.partyId ?? undefined,
+      partyId: filter.partyId,
+      kind: filter.kind,
+      states: filter.states,
+      from: filter.from,
+      to: filter.to,
+    };
+    const values = Object.fromEntries(Object.entries(given).filter(([, v]) => v !== undefined));
+    const shape = `${filter.sort}:${scope.issuedOnly}:${Object.keys(values).join(',')}`;
+    let statements = this.summaryStatements.get(shape);
+    if (!statements) {
+      statements = this.prepareSummaries(new Set(Object.keys(values)), scope.issuedOnly, filter.sort);
+      this.summaryStatements.set(shape, statements);
+    }
+    const [rows, totals] = await Promise.all([statements.page.execute({ ...values, limit: filter.limit, offset: filter.offset }), statements.count.execute(values)]);
     return { rows, total: totals[0]?.n ?? 0 };
+  }
+
+  private readonly summaryStatements = new Map<string, ReturnType<InvoicesRepository['prepareSummaries']>>();
+
+  /** The list's statements for the values named in `given`, each a placeholder of its name. */
+  private prepareSummaries(given: Set<string>, issuedOnly: boolean, sort: string) {
+    const value = (name: string) => sql.placeholder(name);
+    const where = and(
+      scopeWhere({ operationId: value('operationId'), partyId: given.has('scopePartyId') ? value('scopePartyId') : null, issuedOnly }),
+      given.has('partyId') ? eq(invoices.partyId, value('partyId')) : undefined,
+      given.has('kind') ? eq(invoices.kind, value('kind')) : undefined,
+      given.has('states') ? sql`${stateSql} = any(${value('states')}::text[])` : undefined,
+      given.has('from') ? gte(dateOf, value('from')) : undefined,
+      given.has('to') ? lte(dateOf, value('to')) : undefined,
+    );
+    const page = this.dbh.db
+      .select({ ...summaryColumns, invoice: listedInvoiceColumns })
+      .from(invoices)
+      .innerJoin(parties, and(eq(parties.operationId, invoices.operationId), eq(parties.id, invoices.partyId)))
+      .where(where)
+      .orderBy(...(SORTS[sort] ?? SORTS['-createdAt']!), asc(invoices.id))
+      .limit(value('limit'))
+      .offset(value('offset'));
+    const total = this.dbh.db.select({ n: count() }).from(invoices).where(where);
+    return { page: page.prepare(statementName(page.toSQL().sql)), count: total.prepare(statementName(total.toSQL().sql)) };
   }
 
   async summary(scope: InvoiceScope, id: string, executor: Executor = this.dbh.db): Promise<InvoiceSummaryRow | undefined> {
