@@ -192,16 +192,6 @@ function matchingQuantities(c: Conditions): SQL {
   );
 }
 
-/** Names of a page's rows, one small lookup each, done after the page is cut. */
-const pageNames = {
-  fieldName: sql<string>`(select ${fields.name} from ${fields} where ${fields.operationId} = ${workEntries.operationId} and ${fields.id} = ${workEntries.fieldId})`,
-  workTypeName: sql<string>`(select ${workTypes.name} from ${workTypes} where ${workTypes.operationId} = ${workEntries.operationId} and ${workTypes.id} = ${workEntries.workTypeId})`,
-  powerMachineName: sql<string | null>`(select ${powerMachines.name} from ${machines} ${powerMachines} where ${powerMachines.operationId} = ${workEntries.operationId} and ${powerMachines.id} = ${workEntries.powerMachineId})`,
-  implementMachineName: sql<string | null>`(select ${implementMachines.name} from ${machines} ${implementMachines} where ${implementMachines.operationId} = ${workEntries.operationId} and ${implementMachines.id} = ${workEntries.implementMachineId})`,
-  operatorName: sql<string>`(select ${users.name} from ${users} where ${users.id} = ${workEntries.operatorUserId})`,
-  billToName: sql<string>`(select ${parties.name} from ${parties} where ${parties.operationId} = ${workEntries.operationId} and ${parties.id} = ${workEntries.billToPartyId})`,
-};
-
 /** Every query is scoped by the operation id passed first. */
 @Injectable()
 export class WorkEntriesRepository {
@@ -333,7 +323,8 @@ export class WorkEntriesRepository {
    * A page of the table and its totals. The page's ids are picked first, from the entry columns (and the
    * one table a name sort needs), so the names are looked up for those rows only and not for every
    * entry that matches. Both statements are built once for each combination of filters and sort, with
-   * placeholders for the values, and prepared, so neither drizzle nor PostgreSQL plans them again.
+   * placeholders for the values, and prepared, so neither drizzle nor PostgreSQL plans them again: the
+   * names are joined to the page, a join search the cached generic plan makes once per connection.
    */
   async list(operationId: string, filter: WorkEntryFilter, scope: ListScope, window: ListWindow): Promise<{ rows: WorkEntryView[]; total: number; totals: { hours: string; acres: string; miles: string } }> {
     const conditions = conditionsOf(operationId, filter, scope);
@@ -358,9 +349,23 @@ export class WorkEntriesRepository {
   private prepareList(c: Conditions, sort: string) {
     const page = sql`unnest(array(${pageIds(c, sort)})) with ordinality as page(id, pos)`;
     const pageQuery = this.dbh.db
-      .select({ ...getTableColumns(workEntries), ...pageNames })
+      .select({
+        ...getTableColumns(workEntries),
+        fieldName: fields.name,
+        workTypeName: workTypes.name,
+        powerMachineName: powerMachines.name,
+        implementMachineName: implementMachines.name,
+        operatorName: users.name,
+        billToName: parties.name,
+      })
       .from(workEntries)
       .innerJoin(page, sql`page.id = ${workEntries.id}`)
+      .innerJoin(fields, and(eq(fields.operationId, workEntries.operationId), eq(fields.id, workEntries.fieldId)))
+      .innerJoin(workTypes, and(eq(workTypes.operationId, workEntries.operationId), eq(workTypes.id, workEntries.workTypeId)))
+      .innerJoin(parties, and(eq(parties.operationId, workEntries.operationId), eq(parties.id, workEntries.billToPartyId)))
+      .innerJoin(users, eq(users.id, workEntries.operatorUserId))
+      .leftJoin(powerMachines, and(eq(powerMachines.operationId, workEntries.operationId), eq(powerMachines.id, workEntries.powerMachineId)))
+      .leftJoin(implementMachines, and(eq(implementMachines.operationId, workEntries.operationId), eq(implementMachines.id, workEntries.implementMachineId)))
       .where(eq(workEntries.operationId, c.operationId))
       .orderBy(sql`page.pos`);
     const totalsQuery = this.dbh.db
