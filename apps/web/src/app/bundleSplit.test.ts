@@ -8,14 +8,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 // The structure behind the bundle budget (npm run bench measures the bytes): the sign-in page and the cab
 // form load no table, chart, date-picker or upload code, and every page is a chunk of its own. Beyond that the
 // sign-in page loads none of the signed-in app (query cache, toasts, form recipe, zod), and the cab form
-// fetches zod, the dropdown positioning and the toasts only once it is drawn. It builds the app itself, so it
-// checks the sources as they are rather than whatever dist was built last.
+// fetches zod, the phone queue, the dropdown positioning and the toasts only once it is drawn. It builds the
+// app itself, so it checks the sources as they are rather than whatever dist was built last.
 
 const webRoot = fileURLToPath(new URL('../..', import.meta.url));
 const HEAVY_PACKAGES = /node_modules\/(mantine-react-table|@tanstack\/react-table|@mantine\/charts|recharts|d3-[a-z-]+|@mantine\/dates|dayjs|@mantine\/dropzone|react-dropzone)\//;
 const ROUTE_MODULE = /^src\/(features\/[^/]+\/routes|app\/layout)\//;
 const SIGNED_IN_ONLY = /node_modules\/(zod|@tanstack\/query-core|@tanstack\/react-query|@mantine\/notifications|@mantine\/form|@floating-ui\/[a-z-]+)\//;
-const AFTER_CAB_FORM_PAINT = /node_modules\/(zod|@floating-ui\/[a-z-]+|@mantine\/notifications)\//;
+const AFTER_CAB_FORM_PAINT = /node_modules\/(zod|@floating-ui\/[a-z-]+|@mantine\/notifications|idb)\//;
 const DEVELOPMENT_BUILDS = /node_modules\/(react-router\/dist\/development)\//;
 
 const SIGN_IN = ['src/features/auth/routes/SignInPage.tsx'];
@@ -107,11 +107,11 @@ describe('web bundle split', () => {
     expect(heavySourcesIn(pageChunks(SIGN_IN), SIGNED_IN_ONLY)).toEqual([]);
   });
 
-  it('the cab form loads zod, the dropdown positioning and the toasts only after it is drawn', () => {
+  it('the cab form loads zod, the phone queue, the dropdown positioning and the toasts only after it is drawn', () => {
     const cabForm = pageChunks(CAB_FORM);
     expect(heavySourcesIn(cabForm, AFTER_CAB_FORM_PAINT)).toEqual([]);
     // They still come, fetched by the frame and the form once drawn (not by a page of their own): the entry
-    // schema for the checks before sending, the user menu's dropdown and the toast host.
+    // schema for the checks before sending, the queue in IndexedDB, the user menu's dropdown and the toast host.
     const fetchedLater = [...cabForm]
       .flatMap((key) => manifest[key]!.dynamicImports ?? [])
       .filter((key) => !/^src\/features\/[^/]+\/routes\//.test(key));
@@ -120,6 +120,7 @@ describe('web bundle split', () => {
     expect(seen).toContain('zod');
     expect(seen).toContain('@floating-ui');
     expect(seen).toContain('@mantine/notifications');
+    expect(seen).toContain('idb');
   });
 
   it('the cab form works out its hours without decimal.js', () => {
