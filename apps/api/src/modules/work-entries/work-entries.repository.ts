@@ -192,6 +192,16 @@ function matchingQuantities(c: Conditions): SQL {
   );
 }
 
+/** The names an entry is shown with, from the joins every view of entries makes. */
+const NAME_COLUMNS = {
+  fieldName: fields.name,
+  workTypeName: workTypes.name,
+  powerMachineName: powerMachines.name,
+  implementMachineName: implementMachines.name,
+  operatorName: users.name,
+  billToName: parties.name,
+};
+
 /** Every query is scoped by the operation id passed first. */
 @Injectable()
 export class WorkEntriesRepository {
@@ -201,12 +211,7 @@ export class WorkEntriesRepository {
     return executor
       .select({
         entry: workEntries,
-        fieldName: fields.name,
-        workTypeName: workTypes.name,
-        powerMachineName: powerMachines.name,
-        implementMachineName: implementMachines.name,
-        operatorName: users.name,
-        billToName: parties.name,
+        ...NAME_COLUMNS,
       })
       .from(workEntries)
       .innerJoin(fields, and(eq(fields.operationId, workEntries.operationId), eq(fields.id, workEntries.fieldId)))
@@ -351,12 +356,7 @@ export class WorkEntriesRepository {
     const pageQuery = this.dbh.db
       .select({
         ...getTableColumns(workEntries),
-        fieldName: fields.name,
-        workTypeName: workTypes.name,
-        powerMachineName: powerMachines.name,
-        implementMachineName: implementMachines.name,
-        operatorName: users.name,
-        billToName: parties.name,
+        ...NAME_COLUMNS,
       })
       .from(workEntries)
       .innerJoin(page, sql`page.id = ${workEntries.id}`)
