@@ -1,6 +1,7 @@
 import { type DynamicModule, Global, Module } from '@nestjs/common';
 import { JwtModule } from '@nestjs/jwt';
 import { createDb } from '@hitchbook/db';
+import { ReadCache } from '../common/http/read-cache.js';
 import { AuditService } from './audit.service.js';
 import { APP_CONFIG, type AppConfig } from './config.js';
 import { DB, type DbHandle } from './database.js';
@@ -21,8 +22,9 @@ export class CoreModule {
         AuditService,
         MailService,
         RateLimitService,
+        ReadCache,
       ],
-      exports: [APP_CONFIG, DB, JwtModule, AuditService, MailService, RateLimitService],
+      exports: [APP_CONFIG, DB, JwtModule, AuditService, MailService, RateLimitService, ReadCache],
     };
   }
 }

@@ -11,3 +11,4 @@ export * from './rates.js';
 export * from './invoices.js';
 export * from './square-ups.js';
 export * from './work-sums.js';
+export * from './data-versions.js';

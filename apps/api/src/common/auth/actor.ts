@@ -12,6 +12,11 @@ export interface Actor {
   role: Role;
   /** The household (or, for customers, the customer party) this member stands for. */
   partyId: string | null;
+  /**
+   * The operation's data version, read with the role before anything else the request reads, so an answer
+   * computed afterwards is never older than the version it is kept under (common/http/read-cache.ts).
+   */
+  dataVersion?: string;
 }
 
 export interface RequestWithActor {

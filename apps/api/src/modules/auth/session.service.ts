@@ -2,7 +2,7 @@ import { createSecretKey } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
 import { JwtService } from '@nestjs/jwt';
 import { and, eq, gt, isNull, ne, sql, type Placeholder } from 'drizzle-orm';
-import { authSessions, memberships, operations, refreshTokens, users, type Executor } from '@hitchbook/db';
+import { authSessions, memberships, operationDataVersions, operations, refreshTokens, users, type Executor } from '@hitchbook/db';
 import type { SessionUser } from '@hitchbook/shared/schemas/auth';
 import type { Actor } from '../../common/auth/actor.js';
 import { AppError } from '../../common/errors/app-error.js';
@@ -94,11 +94,13 @@ export class SessionService {
         operationName: operations.name,
         role: memberships.role,
         partyId: memberships.partyId,
+        dataVersion: sql<string>`coalesce(${operationDataVersions.version}, 0)::text`,
       })
       .from(authSessions)
       .innerJoin(memberships, eq(memberships.id, authSessions.membershipId))
       .innerJoin(users, eq(users.id, authSessions.userId))
       .innerJoin(operations, eq(operations.id, memberships.operationId))
+      .leftJoin(operationDataVersions, eq(operationDataVersions.operationId, memberships.operationId))
       .where(
         and(
           eq(authSessions.id, sql.placeholder('sessionId')),

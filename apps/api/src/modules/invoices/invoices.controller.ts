@@ -29,6 +29,7 @@ import { InvoiceDraftsService } from './invoice-drafts.service.js';
 import { InvoiceIssueService } from './invoice-issue.service.js';
 import { InvoicePaymentsService } from './invoice-payments.service.js';
 import { InvoicesService } from './invoices.service.js';
+import { KeptUntilDataChanges } from '../../common/http/read-cache.js';
 
 /** Owners bill; partners and bookkeepers read; a customer reads only their own issued invoices; operators see no money. */
 @Controller('invoices')
@@ -41,6 +42,7 @@ export class InvoicesController {
   ) {}
 
   @Roles('owner', 'partner', 'bookkeeper', 'customer')
+  @KeptUntilDataChanges()
   @Get()
   list(@CurrentActor() actor: Actor, @Query(new ZodPipe(invoiceListQuerySchema)) query: InvoiceListQuery): Promise<Page<InvoiceSummaryDto>> {
     return this.invoices.list(actor, query);

@@ -17,6 +17,7 @@ import { ZodPipe } from '../../common/validation/zod.pipe.js';
 import { CustomIncomeService } from './custom-income.service.js';
 import { MachineRatesService } from './machine-rates.service.js';
 import { SuggestedRatesService } from './suggested-rates.service.js';
+import { KeptUntilDataChanges } from '../../common/http/read-cache.js';
 
 /** Year-end figures are money throughout: the money roles read them, the owner alone sets next year's rates. */
 @Controller('reports')
@@ -28,6 +29,7 @@ export class ReportsController {
   ) {}
 
   @Roles('owner', 'partner', 'bookkeeper')
+  @KeptUntilDataChanges()
   @Get('machine-rates')
   machineRates(@CurrentActor() actor: Actor, @Query(new ZodPipe(machineRatesQuerySchema)) query: MachineRatesQuery): Promise<MachineRatesReportDto> {
     return this.rates.report(actor.operationId, query);

@@ -20,6 +20,7 @@ import { CurrentActor, Roles } from '../../common/auth/decorators.js';
 import { UuidPipe } from '../../common/validation/uuid.pipe.js';
 import { ZodPipe } from '../../common/validation/zod.pipe.js';
 import { SquareUpsService } from './square-ups.service.js';
+import { KeptUntilDataChanges } from '../../common/http/read-cache.js';
 
 const READERS = ['owner', 'partner', 'bookkeeper'] as const;
 const WRITERS = ['owner', 'partner'] as const;
@@ -48,6 +49,7 @@ export class SquareUpsController {
   }
 
   @Roles(...READERS)
+  @KeptUntilDataChanges()
   @Get(':id/statement')
   statement(@CurrentActor() actor: Actor, @Param('id', new UuidPipe()) id: string): Promise<SquareUpStatementDto> {
     return this.squareUps.statement(actor, id);

@@ -26,6 +26,7 @@ import { ZodPipe } from '../../common/validation/zod.pipe.js';
 import { WorkEntriesExportService } from './work-entries-export.service.js';
 import { WorkEntriesImportService } from './work-entries-import.service.js';
 import { WorkEntriesService } from './work-entries.service.js';
+import { KeptUntilDataChanges } from '../../common/http/read-cache.js';
 
 // Customers never reach these routes: they see entries only through their invoices.
 @Controller('work-entries')
@@ -37,6 +38,7 @@ export class WorkEntriesController {
   ) {}
 
   @Roles('owner', 'partner', 'operator', 'bookkeeper')
+  @KeptUntilDataChanges()
   @Get()
   list(@CurrentActor() actor: Actor, @Query(new ZodPipe(workEntryListQuerySchema)) query: WorkEntryListQuery): Promise<WorkEntryPage> {
     return this.entries.list(actor, query);

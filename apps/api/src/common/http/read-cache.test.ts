@@ -1,0 +1,123 @@
+import { workEntries } from '@hitchbook/db';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createOperation, signInAll, type OperationFixture } from '../../test-support/fixtures.js';
+import { createTestApp, type TestApp } from '../../test-support/test-app.js';
+import { createFleet, type FleetFixture } from '../../modules/work-entries/test-helpers.js';
+
+let t: TestApp;
+let fx: OperationFixture;
+let other: OperationFixture;
+let fleet: FleetFixture;
+let tokens: Awaited<ReturnType<typeof signInAll>>;
+let otherTokens: Awaited<ReturnType<typeof signInAll>>;
+const bearer = (token: string) => ({ Authorization: `Bearer ${token}` });
+const LIST = '/api/work-entries?dateFrom=2025-01-01&dateTo=2025-12-31&sort=-date&pageSize=50';
+
+beforeAll(async () => {
+  t = await createTestApp();
+  fx = await createOperation(t.dbh.db, 'Kept answers');
+  other = await createOperation(t.dbh.db, 'Kept answers, next door');
+  fleet = await createFleet(t.dbh.db, fx);
+  tokens = await signInAll(t, fx);
+  otherTokens = await signInAll(t, other);
+  await addEntry('3.00');
+});
+afterAll(() => t.close());
+
+async function addEntry(hours: string): Promise<void> {
+  await t.dbh.db.insert(workEntries).values(entryRow(hours));
+}
+
+function entryRow(hours: string) {
+  return {
+    operationId: fx.operationId,
+    createdBy: fx.members.owner.userId,
+    workDate: '2025-05-01',
+    fieldId: fleet.home40,
+    workTypeId: fleet.mowing,
+    powerMachineId: fleet.tractor,
+    operatorUserId: fx.members.operator.userId,
+    hours,
+    acres: '10.000',
+    billToPartyId: fx.households[0],
+    state: 'approved' as const,
+  };
+}
+
+/** Writes an entry with the database's triggers switched off, so the operation's data version stays where it was. */
+async function addEntryUnversioned(hours: string): Promise<void> {
+  const client = await t.dbh.pool.connect();
+  try {
+    await client.query('set session_replication_role = replica');
+    const row = entryRow(hours);
+    await client.query(
+      `insert into work_entries (operation_id, created_by, work_date, field_id, work_type_id, power_machine_id, operator_user_id, hours, acres, bill_to_party_id, state)
+       values ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11)`,
+      [row.operationId, row.createdBy, row.workDate, row.fieldId, row.workTypeId, row.powerMachineId, row.operatorUserId, row.hours, row.acres, row.billToPartyId, row.state],
+    );
+  } finally {
+    await client.query('reset session_replication_role');
+    client.release();
+  }
+}
+
+async function totalHours(token = tokens.bookkeeper, headers: Record<string, string> = {}): Promise<string> {
+  const res = await t.http().get(LIST).set({ ...bearer(token), ...headers });
+  expect(res.status, JSON.stringify(res.body)).toBe(200);
+  expect(res.headers['content-type']).toMatch(/^application\/json/);
+  return (res.body as { totals: { hours: string } }).totals.hours;
+}
+
+describe('answers kept until the data changes', () => {
+  it('serves a kept answer while nothing is written, and a fresh one when asked with no-cache', async () => {
+    const before = await totalHours();
+    await addEntryUnversioned('1.25');
+    // The version did not move, so the kept answer is served: it is really kept.
+    expect(await totalHours()).toBe(before);
+    expect(await totalHours(tokens.bookkeeper, { 'Cache-Control': 'no-cache' })).toBe((Number(before) + 1.25).toFixed(2));
+    // The fresh answer replaced the kept one.
+    expect(await totalHours()).toBe((Number(before) + 1.25).toFixed(2));
+  });
+
+  it('answers anew after any committed write to the operation, through the API or not', async () => {
+    const before = Number(await totalHours());
+    await addEntry('2.00');
+    expect(await totalHours()).toBe((before + 2).toFixed(2));
+
+    const res = await t
+      .http()
+      .post('/api/work-entries')
+      .set(bearer(tokens.owner))
+      .send({ workDate: '2025-05-03', fieldId: fleet.home40, workTypeId: fleet.mowing, powerMachineId: fleet.tractor, hours: '0.50', acres: '5.000', billToPartyId: fx.households[0], state: 'draft' });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(await totalHours()).toBe((before + 2.5).toFixed(2));
+  });
+
+  it("keeps each member's answer apart, and another operation's writes do not touch this one's", async () => {
+    const mine = await totalHours(tokens.bookkeeper);
+    // The same URL for the other operation's bookkeeper is answered from that operation's rows.
+    expect(await totalHours(otherTokens.bookkeeper)).toBe('0.00');
+    await addEntryUnversioned('4.00');
+    // A write in the other operation moves only its version: this operation's kept answer still stands.
+    await t.dbh.pool.query("insert into parties (operation_id, kind, name, relationship) values ($1, 'household', 'Household next door', 'family')", [other.operationId]);
+    expect(await totalHours(tokens.bookkeeper)).toBe(mine);
+    // Another member of this operation has an answer of its own, computed now.
+    expect(await totalHours(tokens.partner)).toBe((Number(mine) + 4).toFixed(2));
+  });
+
+  it('asks for the membership afresh on every request, kept answer or not', async () => {
+    await totalHours(tokens.operator);
+    await t.dbh.pool.query("update memberships set status = 'invited' where id = $1", [fx.members.operator.membershipId]);
+    const res = await t.http().get(LIST).set(bearer(tokens.operator));
+    expect(res.status).toBe(401);
+    await t.dbh.pool.query("update memberships set status = 'active' where id = $1", [fx.members.operator.membershipId]);
+    expect(Number(await totalHours(tokens.operator))).toBeGreaterThan(0);
+  });
+
+  it('keeps nothing for a request that fails validation', async () => {
+    const bad = await t.http().get('/api/work-entries?pageSize=5000').set(bearer(tokens.bookkeeper));
+    expect(bad.status).toBe(400);
+    const again = await t.http().get('/api/work-entries?pageSize=5000').set(bearer(tokens.bookkeeper));
+    expect(again.status).toBe(400);
+  });
+});

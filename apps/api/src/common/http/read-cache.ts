@@ -1,0 +1,85 @@
+import { type CallHandler, type ExecutionContext, Injectable, type NestInterceptor, UseInterceptors, applyDecorators } from '@nestjs/common';
+import type { Request, Response } from 'express';
+import { LRUCache } from 'lru-cache';
+import { type Observable, map, of } from 'rxjs';
+import type { RequestWithActor } from '../auth/actor.js';
+
+/** What the kept answers may take of the API's memory, counted in characters of their JSON. */
+const MAX_CHARACTERS = 64 * 1024 * 1024;
+/**
+ * How long an answer is kept when nothing is written. Answers also depend on the date ("overdue" invoices,
+ * a statement's time of computing), so none outlives a minute, and the key names the day.
+ */
+const TTL_MS = 60_000;
+
+/**
+ * Answers of the heaviest reads (list pages, a year's reports), kept as their JSON under the operation's data
+ * version. Every committed write to an operation's rows moves the version (migration 0012), and the version
+ * is read with the caller's role before the answer is computed, so a kept answer is never older than its
+ * key: a write makes every kept answer of that operation unreachable at once, on every API instance. The
+ * key also names the member (role and household decide what an answer holds) and the whole request URL.
+ */
+@Injectable()
+export class ReadCache {
+  private readonly answers = new LRUCache<string, string>({
+    maxSize: MAX_CHARACTERS,
+    sizeCalculation: (json, key) => json.length + key.length,
+    ttl: TTL_MS,
+  });
+
+  keyOf(req: Request & RequestWithActor): string | null {
+    const actor = req.actor;
+    if (!actor?.dataVersion) return null;
+    const day = new Date().toISOString().slice(0, 10);
+    return [actor.operationId, actor.dataVersion, actor.membershipId, actor.role, actor.partyId ?? '', day, req.originalUrl].join('\u0000');
+  }
+
+  get(key: string): string | undefined {
+    return this.answers.get(key);
+  }
+
+  set(key: string, json: string): void {
+    this.answers.set(key, json);
+  }
+
+  clear(): void {
+    this.answers.clear();
+  }
+}
+
+/**
+ * Runs after the guard, so the caller is known and allowed, and before the route's pipes, so a kept answer
+ * skips validating the query too: only a URL that once passed validation has an answer kept. A request
+ * sent with `Cache-Control: no-cache` is computed afresh (and its answer kept), as HTTP has it.
+ */
+@Injectable()
+export class ReadCacheInterceptor implements NestInterceptor {
+  constructor(private readonly cache: ReadCache) {}
+
+  intercept(context: ExecutionContext, next: CallHandler): Observable<unknown> {
+    const http = context.switchToHttp();
+    const req = http.getRequest<Request & RequestWithActor>();
+    const res = http.getResponse<Response>();
+    const key = this.cache.keyOf(req);
+    if (key === null) return next.handle();
+    const kept = freshRequested(req) ? undefined : this.cache.get(key);
+    // Nest writes a string as it is; the JSON content type is set first so Express keeps it.
+    res.type('application/json');
+    if (kept !== undefined) return of(kept);
+    return next.handle().pipe(
+      map((answer: unknown) => {
+        const json = JSON.stringify(answer);
+        this.cache.set(key, json);
+        return json;
+      }),
+    );
+  }
+}
+
+function freshRequested(req: Request): boolean {
+  const header = req.headers['cache-control'];
+  return typeof header === 'string' && /(^|,)\s*no-cache\s*(,|$)/i.test(header);
+}
+
+/** Keeps a GET route's JSON answer until the operation's data changes; only for answers that are plain JSON. */
+export const KeptUntilDataChanges = () => applyDecorators(UseInterceptors(ReadCacheInterceptor));
