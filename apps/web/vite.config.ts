@@ -1,6 +1,6 @@
 import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
-import { defineConfig } from 'vite';
+import { defineConfig, type Plugin } from 'vite';
 import react from '@vitejs/plugin-react';
 import { pwaPlugin } from './pwa.config';
 
@@ -11,8 +11,27 @@ const port = Number(process.env.PORT ?? 3000);
 // build takes the production files the package ships beside it.
 const reactRouterProduction = join(dirname(createRequire(import.meta.url).resolve('react-router/package.json')), 'dist', 'production');
 
+// That build makes its components and contexts with unmarked React calls and names them afterwards, so the
+// bundler keeps every one (forms, fetchers, server components) whether the app uses it or not. Marked pure and
+// left unnamed, only the router parts the app renders stay in the chunk every page loads.
+function reactRouterTreeShaking(): Plugin {
+  return {
+    name: 'hitchbook:react-router-tree-shaking',
+    apply: 'build',
+    transform(code, id) {
+      if (!id.startsWith(reactRouterProduction)) return null;
+      return {
+        code: code
+          .replace(/= (React\d*)\.(forwardRef|createContext|memo)\(/g, '= /* @__PURE__ */ $1.$2(')
+          .replace(/^\w+\.displayName = "[^"]*";$/gm, ''),
+        map: null,
+      };
+    },
+  };
+}
+
 export default defineConfig(({ mode }) => ({
-  plugins: [react(), pwaPlugin()],
+  plugins: [react(), pwaPlugin(), reactRouterTreeShaking()],
   resolve: {
     alias:
       mode === 'production'
@@ -42,7 +61,7 @@ export default defineConfig(({ mode }) => ({
         // page. Left to the splitter each scatters over many small chunks that compress worse than one.
         codeSplitting: {
           groups: [
-            { name: 'mantine-core', test: /@mantine[\\/]core[\\/]esm[\\/](core|components[\\/](Input|InputBase|TextInput|PasswordInput|ActionIcon|Anchor|UnstyledButton|Loader|Transition|CloseButton|Alert|Text|Button|Stack|Title|Group|Paper|Center|Container|ThemeIcon))[\\/]/ },
+            { name: 'mantine-core', test: /@mantine[\\/]core[\\/]esm[\\/](core|components[\\/](Input|InputBase|TextInput|Anchor|UnstyledButton|Loader|Transition|CloseButton|Alert|Text|Button|Stack|Title|Group|Paper|Center|Container|ThemeIcon))[\\/]/ },
             { name: 'query', test: /@tanstack[\\/](query-core|react-query)[\\/]/ },
           ],
         },

@@ -1,10 +1,11 @@
 import { useState, type ChangeEvent, type FormEvent } from 'react';
-import { Anchor, Button, PasswordInput, Stack, TextInput, Title } from '@mantine/core';
+import { Anchor, Button, Stack, TextInput, Title } from '@mantine/core';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { FormErrorAlert } from '../../../components/FormErrorAlert';
 import { useAuth } from '../../../lib/auth';
 import { paths, safeNextPath } from '../../../lib/paths';
 import { placeServerIssues, type FieldErrors } from '../../../lib/serverIssues';
+import { SignInPasswordField } from '../components/SignInPasswordField';
 import { signInIssues, type SignInValues } from '../signInChecks';
 
 // The first page most people see, often on a phone in a yard: two fields checked by hand rather than
@@ -70,7 +71,7 @@ export function Component() {
           autoFocus
           {...field('email')}
         />
-        <PasswordInput label="Password" autoComplete="current-password" {...field('password')} />
+        <SignInPasswordField label="Password" autoComplete="current-password" {...field('password')} />
         <Button type="submit" size="lg" loading={submitting} fullWidth>
           Sign in
         </Button>
