@@ -13,19 +13,25 @@ const reactRouterProduction = join(dirname(createRequire(import.meta.url).resolv
 
 // That build makes its components and contexts with unmarked React calls and names them afterwards, so the
 // bundler keeps every one (forms, fetchers, server components) whether the app uses it or not. Marked pure and
-// left unnamed, only the router parts the app renders stay in the chunk every page loads.
+// left unnamed, only the router parts the app renders stay in the chunk every page loads. Its links can also
+// prefetch a framework app's route modules; this app has none and never asks, so that code goes too.
+const LINK_PREFETCH =
+  'return shouldPrefetch && !isAbsolute ? /* @__PURE__ */ React10.createElement(React10.Fragment, null, link, /* @__PURE__ */ React10.createElement(PrefetchPageLinks, { page: href })) : link;';
+
 function reactRouterTreeShaking(): Plugin {
   return {
     name: 'hitchbook:react-router-tree-shaking',
     apply: 'build',
     transform(code, id) {
       if (!id.startsWith(reactRouterProduction)) return null;
-      return {
-        code: code
-          .replace(/= (React\d*)\.(forwardRef|createContext|memo)\(/g, '= /* @__PURE__ */ $1.$2(')
-          .replace(/^\w+\.displayName = "[^"]*";$/gm, ''),
-        map: null,
-      };
+      let shaken = code
+        .replace(/= (React\d*)\.(forwardRef|createContext|memo)\(/g, '= /* @__PURE__ */ $1.$2(')
+        .replace(/^\w+\.displayName = "[^"]*";$/gm, '');
+      if (shaken.includes('var Link = ')) {
+        if (!shaken.includes(LINK_PREFETCH)) this.warn('React Router\'s Link changed: its prefetch code stays in the bundle.');
+        shaken = shaken.replace(LINK_PREFETCH, 'return link;');
+      }
+      return { code: shaken, map: null };
     },
   };
 }
@@ -61,7 +67,7 @@ export default defineConfig(({ mode }) => ({
         // page. Left to the splitter each scatters over many small chunks that compress worse than one.
         codeSplitting: {
           groups: [
-            { name: 'mantine-core', test: /@mantine[\\/]core[\\/]esm[\\/](core|components[\\/](Input|InputBase|TextInput|Anchor|UnstyledButton|Loader|Transition|CloseButton|Alert|Text|Button|Stack|Title|Group|Paper|Center|Container|ThemeIcon))[\\/]/ },
+            { name: 'mantine-core', test: /@mantine[\\/]core[\\/]esm[\\/](core(?![\\/](utils[\\/](create-scoped-keydown-handler|close-on-escape|find-element-ancestor|get-context-item-index|use-hovered|get-default-z-index)|MantineProvider[\\/]use-mantine-color-scheme)[\\/])|components[\\/](Input|InputBase|TextInput|Anchor|UnstyledButton|Loader|Transition|CloseButton|Alert|Text|Button|Stack|Title|Group|Paper|Center|Container|ThemeIcon))[\\/]/ },
             { name: 'query', test: /@tanstack[\\/](query-core|react-query)[\\/]/ },
           ],
         },
