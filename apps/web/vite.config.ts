@@ -67,7 +67,7 @@ export default defineConfig(({ mode }) => ({
         // page. Left to the splitter each scatters over many small chunks that compress worse than one.
         codeSplitting: {
           groups: [
-            { name: 'mantine-core', test: /@mantine[\\/]core[\\/]esm[\\/](core(?![\\/](utils[\\/](create-scoped-keydown-handler|close-on-escape|find-element-ancestor|get-context-item-index|use-hovered|get-default-z-index)|MantineProvider[\\/]use-mantine-color-scheme)[\\/])|components[\\/](Input|InputBase|TextInput|Anchor|UnstyledButton|Loader|Transition|CloseButton|Alert|Text|Button|Stack|Title|Group|Paper|Center|Container|ThemeIcon))[\\/]/ },
+            { name: 'mantine-core', test: /@mantine[\\/]core[\\/]esm[\\/](core(?![\\/](utils[\\/](create-scoped-keydown-handler|close-on-escape|find-element-ancestor|get-context-item-index|use-hovered|get-default-z-index)|MantineProvider[\\/]use-mantine-color-scheme)[\\/])|components[\\/](Input|InputBase|TextInput|Anchor|UnstyledButton|Loader|Transition|CloseButton|Alert|Text|Button|Stack|Title|Group|Paper|Center|Container|ThemeIcon))[\\/]|@tabler[\\/]icons-react[\\/]dist[\\/]esm[\\/](createReactComponent|defaultAttributes)\.mjs$|src[\\/](components[\\/]FormErrorAlert|lib[\\/]serverIssues)\.tsx?$/ },
             { name: 'query', test: /@tanstack[\\/](query-core|react-query)[\\/]/ },
           ],
         },

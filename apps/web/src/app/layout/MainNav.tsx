@@ -1,10 +1,15 @@
 import { Box, NavLink, Stack, Text } from '@mantine/core';
 import type { Role } from '@hitchbook/shared/roles';
-import { NavLink as RouterLink, useLocation } from 'react-router-dom';
+import { Link, useLocation } from 'react-router-dom';
 import { areasFor, type Area } from '../../lib/areas';
 
 function isActive(pathname: string, href: string): boolean {
   return href === '/' ? pathname === '/' : pathname === href || pathname.startsWith(`${href}/`);
+}
+
+/** The current page's link says so to screen readers; the plain router link keeps the sign-in page's router code small. */
+function currentPage(pathname: string, href: string): 'page' | undefined {
+  return isActive(pathname, href) ? 'page' : undefined;
 }
 
 function AreaLink({ area, pathname }: { area: Area; pathname: string }) {
@@ -14,8 +19,9 @@ function AreaLink({ area, pathname }: { area: Area; pathname: string }) {
   if (links.length === 0) {
     return (
       <NavLink
-        component={RouterLink}
+        component={Link}
         to={area.href}
+        aria-current={currentPage(pathname, area.href)}
         label={area.label}
         leftSection={<Icon size={24} stroke={1.7} />}
         active={inArea}
@@ -38,8 +44,9 @@ function AreaLink({ area, pathname }: { area: Area; pathname: string }) {
       {links.map((link) => (
         <NavLink
           key={link.href}
-          component={RouterLink}
+          component={Link}
           to={link.href}
+          aria-current={currentPage(pathname, link.href)}
           label={link.label}
           active={isActive(pathname, link.href)}
           h={48}
