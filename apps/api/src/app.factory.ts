@@ -30,6 +30,9 @@ export async function createApp(config: AppConfig, options: CreateAppOptions = {
 export function configureApp(app: NestExpressApplication, config: AppConfig): NestExpressApplication {
   app.set('trust proxy', false);
   app.disable('x-powered-by');
+  // Every API answer is sent with Cache-Control: no-store, so no client ever revalidates it; hashing each body
+  // for an ETag would cost time on the largest answers for nothing. The web app's files carry their own.
+  app.set('etag', false);
   app.use(securityHeaders(config));
   app.use(refuseOversizedJson(JSON_BODY_LIMIT_BYTES));
   app.useBodyParser('json', { limit: JSON_BODY_LIMIT_BYTES });
