@@ -14,9 +14,21 @@ const reactRouterProduction = join(dirname(createRequire(import.meta.url).resolv
 // That build makes its components and contexts with unmarked React calls and names them afterwards, so the
 // bundler keeps every one (forms, fetchers, server components) whether the app uses it or not. Marked pure and
 // left unnamed, only the router parts the app renders stay in the chunk every page loads. Its links can also
-// prefetch a framework app's route modules; this app has none and never asks, so that code goes too.
-const LINK_PREFETCH =
-  'return shouldPrefetch && !isAbsolute ? /* @__PURE__ */ React10.createElement(React10.Fragment, null, link, /* @__PURE__ */ React10.createElement(PrefetchPageLinks, { page: href })) : link;';
+// prefetch a framework app's route modules; this app has none and never asks (outside a framework the link
+// gets no prefetch handlers and no prefetch ref), so that code goes too.
+const LINK_WITHOUT_PREFETCH: [string, string][] = [
+  [
+    `let [shouldPrefetch, prefetchRef, prefetchHandlers] = usePrefetchBehavior(
+      prefetch,
+      rest
+    );`,
+    'let prefetchRef = null, prefetchHandlers = {};',
+  ],
+  [
+    'return shouldPrefetch && !isAbsolute ? /* @__PURE__ */ React10.createElement(React10.Fragment, null, link, /* @__PURE__ */ React10.createElement(PrefetchPageLinks, { page: href })) : link;',
+    'return link;',
+  ],
+];
 
 function reactRouterTreeShaking(): Plugin {
   return {
@@ -28,8 +40,10 @@ function reactRouterTreeShaking(): Plugin {
         .replace(/= (React\d*)\.(forwardRef|createContext|memo)\(/g, '= /* @__PURE__ */ $1.$2(')
         .replace(/^\w+\.displayName = "[^"]*";$/gm, '');
       if (shaken.includes('var Link = ')) {
-        if (!shaken.includes(LINK_PREFETCH)) this.warn('React Router\'s Link changed: its prefetch code stays in the bundle.');
-        shaken = shaken.replace(LINK_PREFETCH, 'return link;');
+        for (const [from, to] of LINK_WITHOUT_PREFETCH) {
+          if (!shaken.includes(from)) this.warn("React Router's Link changed: its prefetch code stays in the bundle.");
+          shaken = shaken.replace(from, to);
+        }
       }
       return { code: shaken, map: null };
     },
@@ -67,7 +81,7 @@ export default defineConfig(({ mode }) => ({
         // page. Left to the splitter each scatters over many small chunks that compress worse than one.
         codeSplitting: {
           groups: [
-            { name: 'mantine-core', test: /@mantine[\\/]core[\\/]esm[\\/](core(?![\\/](utils[\\/](create-scoped-keydown-handler|close-on-escape|find-element-ancestor|get-context-item-index|use-hovered|get-default-z-index)|MantineProvider[\\/]use-mantine-color-scheme)[\\/])|components[\\/](Input|InputBase|TextInput|Anchor|UnstyledButton|Loader|Transition|CloseButton|Alert|Text|Button|Stack|Title|Group|Paper|Center|Container|ThemeIcon))[\\/]|@tabler[\\/]icons-react[\\/]dist[\\/]esm[\\/](createReactComponent|defaultAttributes)\.mjs$|src[\\/](components[\\/]FormErrorAlert|lib[\\/]serverIssues)\.tsx?$/ },
+            { name: 'mantine-core', test: /@mantine[\\/]core[\\/]esm[\\/](core(?![\\/](utils[\\/](create-scoped-keydown-handler|close-on-escape|find-element-ancestor|get-context-item-index|use-hovered|get-default-z-index)|MantineProvider[\\/]use-mantine-color-scheme)[\\/])|components[\\/](Input|InputBase|TextInput|Anchor|UnstyledButton|Loader|Transition|CloseButton|Alert|Text|Button|Stack|Title|Group|Paper|Center|Container))[\\/]|@tabler[\\/]icons-react[\\/]dist[\\/]esm[\\/](createReactComponent|defaultAttributes)\.mjs$|src[\\/](components[\\/]FormErrorAlert|lib[\\/]serverIssues)\.tsx?$/ },
             { name: 'query', test: /@tanstack[\\/](query-core|react-query)[\\/]/ },
           ],
         },

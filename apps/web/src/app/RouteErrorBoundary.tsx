@@ -2,8 +2,6 @@ import { Component, type ErrorInfo, type ReactNode } from 'react';
 import { Alert, Button, Container, Stack, Text, Title } from '@mantine/core';
 import { IconAlertTriangle, IconDatabaseOff } from '@tabler/icons-react';
 import { Navigate, useLocation } from 'react-router-dom';
-import { NotAllowed } from '../components/NotAllowed';
-import { NotFound } from '../components/NotFound';
 import { isApiError } from '../lib/api';
 import { paths } from '../lib/paths';
 
@@ -12,16 +10,26 @@ function isStaleChunk(error: unknown): boolean {
   return error instanceof TypeError && /dynamically imported module|Importing a module script failed/i.test(error.message);
 }
 
-function RouteError({ error }: { error: unknown }) {
+/**
+ * The pages a refused or missing record shows. Only signed-in pages read records, so the signed-in frame hands
+ * them in and the sign-in page does not load them; elsewhere the server's own words say what happened.
+ */
+export interface Refusals {
+  notAllowed: ReactNode;
+  notFound: ReactNode;
+}
+
+function RouteError({ error, refusals }: { error: unknown; refusals: Refusals | undefined }) {
   const location = useLocation();
 
-  if (isApiError(error) && error.status === 403) return <NotAllowed />;
-  if (isApiError(error) && error.status === 404) return <NotFound />;
+  if (refusals && isApiError(error) && error.status === 403) return refusals.notAllowed;
+  if (refusals && isApiError(error) && error.status === 404) return refusals.notFound;
   if (isApiError(error) && error.status === 401) {
     return <Navigate to={paths.signIn({ next: location.pathname + location.search })} replace />;
   }
 
   const databaseDown = isApiError(error) && error.status === 503;
+  const refused = isApiError(error) && (error.status === 403 || error.status === 404);
   const staleChunk = isStaleChunk(error);
   return (
     <Container size="sm" py="xl">
@@ -35,7 +43,9 @@ function RouteError({ error }: { error: unknown }) {
               ? 'Nothing is lost. Try again in a few minutes.'
               : staleChunk
                 ? 'Reload the page to get the new version.'
-                : 'This screen hit an unexpected problem. Reloading usually helps; if it keeps happening, tell the account owner what you were doing.'}
+                : refused && isApiError(error)
+                  ? error.message
+                  : 'This screen hit an unexpected problem. Reloading usually helps; if it keeps happening, tell the account owner what you were doing.'}
           </Text>
         </Alert>
         <Button onClick={() => window.location.reload()} w="fit-content">
@@ -48,6 +58,7 @@ function RouteError({ error }: { error: unknown }) {
 
 interface BoundaryProps {
   children: ReactNode;
+  refusals?: Refusals;
 }
 
 interface BoundaryState {
@@ -74,12 +85,16 @@ class Boundary extends Component<BoundaryProps & { pathname: string }, BoundaryS
   }
 
   override render() {
-    return this.state.error ? <RouteError error={this.state.error} /> : this.props.children;
+    return this.state.error ? <RouteError error={this.state.error} refusals={this.props.refusals} /> : this.props.children;
   }
 }
 
 /** What a page shows when it fails to load or render: a page of its own, inside the frame around it. */
-export function RouteErrorBoundary({ children }: BoundaryProps) {
+export function RouteErrorBoundary({ children, refusals }: BoundaryProps) {
   const { pathname } = useLocation();
-  return <Boundary pathname={pathname}>{children}</Boundary>;
+  return (
+    <Boundary pathname={pathname} refusals={refusals}>
+      {children}
+    </Boundary>
+  );
 }

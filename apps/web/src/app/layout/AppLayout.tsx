@@ -4,6 +4,8 @@ import { useDisclosure } from '@mantine/hooks';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { useLocation } from 'react-router-dom';
 import { DatabaseDownNotice } from '../../components/DatabaseDownNotice';
+import { NotAllowed } from '../../components/NotAllowed';
+import { NotFound } from '../../components/NotFound';
 import { PhoneQueueStatus } from '../../features/offline/components/PhoneQueueStatus';
 import { PhoneQueueSync } from '../../features/offline/components/PhoneQueueSync';
 import type { SessionUser } from '@hitchbook/shared/schemas/auth';
@@ -11,7 +13,7 @@ import { useAfterFirstPaint } from '../../lib/afterFirstPaint';
 import { useSessionUserOrThrow } from '../../lib/auth';
 import { paths } from '../../lib/paths';
 import { queryClient } from '../../lib/queryClient';
-import { RouteErrorBoundary } from '../RouteErrorBoundary';
+import { RouteErrorBoundary, type Refusals } from '../RouteErrorBoundary';
 import { SignedInRoutes } from '../signedInRoutes';
 import { AccountButton } from './AccountButton';
 import { Brand } from './Brand';
@@ -19,6 +21,8 @@ import { MainNav } from './MainNav';
 
 // Both only matter once someone taps or saves, and both bring positioning and transition code of their
 // own: they load right after the page is drawn, so the cab form shows without waiting for them.
+const REFUSALS: Refusals = { notAllowed: <NotAllowed />, notFound: <NotFound /> };
+
 const UserMenu = lazy(() => import('./UserMenu'));
 const Notifications = lazy(() => import('@mantine/notifications').then((module) => ({ default: module.Notifications })));
 
@@ -91,7 +95,7 @@ export default function AppLayout() {
           <PhoneQueueSync userId={user.id} />
           {/* The cab form shows the queue itself, beside the entries it lists. */}
           {location.pathname !== paths.work.log() && <PhoneQueueStatus />}
-          <RouteErrorBoundary>
+          <RouteErrorBoundary refusals={REFUSALS}>
             <Suspense fallback={<Skeleton h={320} maw={720} />}>
               <SignedInRoutes />
             </Suspense>
