@@ -99,6 +99,19 @@ describe('web bundle split', () => {
     expect(chunks.has('src/app/layout/AppLayout.tsx')).toBe(false);
   });
 
+  it('the sign-in page loads no service-worker library, password-input family or record-refusal pages', () => {
+    const chunks = pageChunks(SIGN_IN);
+    const notOnSignIn =
+      /(node_modules\/workbox-window|@mantine\/core\/esm\/components\/(?:PasswordInput|ActionIcon)|src\/components\/Not(?:Found|Allowed))[/.]/;
+    expect(heavySourcesIn(chunks, notOnSignIn)).toEqual([]);
+    // React Router is one module, so its unused forms and link prefetching show only in the code itself.
+    const code = [...chunks].map((key) => readFileSync(join(outDir, manifest[key]!.file), 'utf8')).join('\n');
+    expect(code).not.toContain('application/x-www-form-urlencoded');
+    expect(code).not.toContain('IntersectionObserver');
+    // The signed-in frame still has the refusal pages, where a page can meet a 403 or a 404.
+    expect(heavySourcesIn(pageChunks(CAB_FORM), notOnSignIn).join(' ')).toContain('src/components/NotFound');
+  });
+
   it('the cab work-entry form loads no table, chart, date or upload code', () => {
     expect(heavySourcesIn(pageChunks(CAB_FORM))).toEqual([]);
   });
