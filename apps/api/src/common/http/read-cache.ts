@@ -17,7 +17,8 @@ const TTL_MS = 60_000;
  * version. Every committed write to an operation's rows moves the version (migration 0012), and the version
  * is read with the caller's role before the answer is computed, so a kept answer is never older than its
  * key: a write makes every kept answer of that operation unreachable at once, on every API instance. The
- * key also names the member (role and household decide what an answer holds) and the whole request URL.
+ * key also names the membership (its role and household decide what an answer holds; changing either is a write
+ * that moves the version) and the whole request URL.
  */
 @Injectable()
 export class ReadCache {
@@ -31,7 +32,7 @@ export class ReadCache {
     const actor = req.actor;
     if (!actor?.dataVersion) return null;
     const day = new Date().toISOString().slice(0, 10);
-    return [actor.operationId, actor.dataVersion, actor.membershipId, actor.role, actor.partyId ?? '', day, req.originalUrl].join('\u0000');
+    return [actor.operationId, actor.dataVersion, actor.membershipId, day, req.originalUrl].join('\u0000');
   }
 
   get(key: string): Buffer | undefined {
@@ -40,10 +41,6 @@ export class ReadCache {
 
   set(key: string, json: Buffer): void {
     this.answers.set(key, json);
-  }
-
-  clear(): void {
-    this.answers.clear();
   }
 }
 

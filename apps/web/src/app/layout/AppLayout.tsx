@@ -19,10 +19,10 @@ import { AccountButton } from './AccountButton';
 import { Brand } from './Brand';
 import { MainNav } from './MainNav';
 
-// Both only matter once someone taps or saves, and both bring positioning and transition code of their
-// own: they load right after the page is drawn, so the cab form shows without waiting for them.
 const REFUSALS: Refusals = { notAllowed: <NotAllowed />, notFound: <NotFound /> };
 
+// Both only matter once someone taps or saves, and both bring positioning and transition code of their
+// own: they load right after the page is drawn, so the cab form shows without waiting for them.
 const UserMenu = lazy(() => import('./UserMenu'));
 const Notifications = lazy(() => import('@mantine/notifications').then((module) => ({ default: module.Notifications })));
 
