@@ -137,6 +137,26 @@ describe('work-entry import', () => {
     expect(res.body).toMatchObject({ created: 1, skipped: 1, skippedRows: [{ row: 3, reason: 'Same as row 2 of this file; stored once.' }] });
   });
 
+  it('stores every cell as the file gives it, quotes, braces, backslashes and empty cells included', async () => {
+    const { fx, fleet, tokens, householdA, customerC } = await outfit();
+    const op = fx.members.operator.email;
+    // Characters that mean something inside a PostgreSQL array literal, where a batch's columns travel.
+    const awkward = 'gate "B" {north}, \\ left open; naïve NULL';
+    const csv = [
+      HEADER,
+      `2025-05-01,Home 40,Mowing (rotary),Red 7120,Batwing 15,${op},4.5,,,,,12.5,${householdA},"${awkward.replaceAll('"', '""')}"`,
+      `2025-05-02,Creek 80,disking,T-3,,${op},,1200.0,1206.5,33.25,,,${customerC},NULL`,
+    ].join('\n');
+    const res = await upload(tokens.owner, 'entries', 'commit', csv);
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect(res.body.created).toBe(2);
+    const stored = await t.dbh.db.select().from(workEntries).where(eq(workEntries.operationId, fx.operationId)).orderBy(workEntries.workDate);
+    expect(stored.map((e) => [e.notes, e.hours, e.acres, e.meterStart, e.meterEnd, e.fuelGallons, e.implementMachineId === null, e.powerMachineId, e.state, e.submittedAt !== null, e.importKey?.length])).toEqual([
+      [awkward, '4.50', '40.000', null, null, '12.500', false, fleet.tractor, 'submitted', true, 64],
+      ['NULL', '6.50', '33.250', '1200.0', '1206.5', null, true, fleet.tractor, 'submitted', true, 64],
+    ]);
+  });
+
   it('keeps the meter order against stored readings and between the rows of the file', async () => {
     const { fx, fleet, tokens, householdA } = await outfit();
     await addMeterReading(t.dbh.db, fx.operationId, fleet.tractor, '2025-05-05T18:00:00Z', '1300.0');

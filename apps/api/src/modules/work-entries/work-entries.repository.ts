@@ -5,6 +5,7 @@ import { fields, invoiceEntries, machines, meterReadings, parties, users, workEn
 import type { WorkEntryFilter } from '@hitchbook/shared/schemas/work-entries';
 import { DB, type DbHandle } from '../../core/database.js';
 import { statementName } from '../../core/prepared.js';
+import type { EntryColumns } from './entry-draft.js';
 
 const powerMachines = alias(machines, 'power_machines');
 const implementMachines = alias(machines, 'implement_machines');
@@ -18,6 +19,9 @@ export type WorkEntryView = WorkEntry & {
   operatorName: string;
   billToName: string;
 };
+
+/** An entry as an import stores it. */
+export type ImportedEntry = EntryColumns & { state: WorkEntry['state']; submittedAt: Date; importKey: string; createdBy: string };
 
 export interface SameDayEntry {
   id: string;
@@ -253,13 +257,33 @@ export class WorkEntriesRepository {
   }
 
   /** Inserts imported rows; a row whose import key is already stored is left out, not duplicated. */
-  async insertImported(operationId: string, rows: Array<Omit<NewWorkEntry, 'operationId' | 'id'>>, tx: Executor): Promise<Array<{ id: string; importKey: string | null }>> {
+  /**
+   * One batch of imported entries in one statement, each column as one array parameter: a multi-row insert
+   * built with a parameter per cell costs more to build and bind than PostgreSQL takes to store the rows.
+   * A row whose import key another upload stored meanwhile is left out of the answer.
+   */
+  async insertImported(operationId: string, rows: ImportedEntry[], tx: Executor): Promise<Array<{ id: string; importKey: string }>> {
     if (rows.length === 0) return [];
-    return tx
-      .insert(workEntries)
-      .values(rows.map((r) => ({ ...r, operationId })))
-      .onConflictDoNothing({ target: [workEntries.operationId, workEntries.importKey] })
-      .returning({ id: workEntries.id, importKey: workEntries.importKey });
+    const column = <T>(pick: (row: ImportedEntry) => T) => sql.param(rows.map(pick));
+    const instant = (d: Date | null) => d?.toISOString() ?? null;
+    const result = await tx.execute<{ id: string; importKey: string }>(sql`
+      insert into work_entries (operation_id, work_date, operator_user_id, field_id, work_type_id, power_machine_id, implement_machine_id,
+        meter_start, meter_end, started_at, ended_at, hours, operator_hours, acres, miles, loads, each_count, fuel_gallons,
+        bill_to_party_id, notes, state, submitted_at, import_key, created_by)
+      select ${operationId}::uuid, r.* from unnest(
+        ${column((r) => r.workDate)}::date[], ${column((r) => r.operatorUserId)}::uuid[], ${column((r) => r.fieldId)}::uuid[],
+        ${column((r) => r.workTypeId)}::uuid[], ${column((r) => r.powerMachineId)}::uuid[], ${column((r) => r.implementMachineId)}::uuid[],
+        ${column((r) => r.meterStart)}::numeric[], ${column((r) => r.meterEnd)}::numeric[],
+        ${column((r) => instant(r.startedAt))}::timestamptz[], ${column((r) => instant(r.endedAt))}::timestamptz[],
+        ${column((r) => r.hours)}::numeric[], ${column((r) => r.operatorHours)}::numeric[], ${column((r) => r.acres)}::numeric[],
+        ${column((r) => r.miles)}::numeric[], ${column((r) => r.loads)}::numeric[], ${column((r) => r.eachCount)}::numeric[],
+        ${column((r) => r.fuelGallons)}::numeric[], ${column((r) => r.billToPartyId)}::uuid[], ${column((r) => r.notes)}::text[],
+        ${column((r) => r.state)}::text[], ${column((r) => instant(r.submittedAt))}::timestamptz[], ${column((r) => r.importKey)}::text[],
+        ${column((r) => r.createdBy)}::uuid[]
+      ) as r
+      on conflict (operation_id, import_key) do nothing
+      returning id, import_key as "importKey"`);
+    return result.rows;
   }
 
   async existingImportKeys(operationId: string, keys: string[], executor: Executor = this.dbh.db): Promise<Set<string>> {
