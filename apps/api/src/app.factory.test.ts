@@ -14,6 +14,8 @@ beforeAll(async () => {
   writeFileSync(join(webDist, 'assets', 'app-abc123.js'), 'console.log(1)');
   writeFileSync(join(webDist, 'sw.js'), 'self.addEventListener("fetch", () => {});');
   writeFileSync(join(webDist, 'manifest.webmanifest'), '{"name":"Hitchbook"}');
+  mkdirSync(join(webDist, 'api'));
+  writeFileSync(join(webDist, 'api', 'health'), 'a file, not the health check');
   t = await createTestApp({ webDist });
 });
 afterAll(() => t.close());
@@ -35,6 +37,13 @@ describe('HTTP surface', () => {
   it('sends no CORS permission to another origin', async () => {
     const res = await t.http().options('/api/auth/login').set('Origin', 'https://evil.example').set('Access-Control-Request-Method', 'POST');
     expect(res.headers['access-control-allow-origin']).toBeUndefined();
+  });
+
+  it('answers API paths from the API only, never from a file of the web app', async () => {
+    const health = await t.http().get('/api/health');
+    expect(health.status).toBe(200);
+    expect(health.body).toMatchObject({ status: 'ok' });
+    expect(health.text).not.toContain('a file');
   });
 
   it('answers JSON 404 for an unknown API path', async () => {
