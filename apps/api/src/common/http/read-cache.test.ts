@@ -1,5 +1,7 @@
 import { workEntries } from '@hitchbook/db';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { conflict } from '../errors/app-error.js';
+import { WorkEntriesService } from '../../modules/work-entries/work-entries.service.js';
 import { createOperation, signInAll, type OperationFixture } from '../../test-support/fixtures.js';
 import { createTestApp, type TestApp } from '../../test-support/test-app.js';
 import { createFleet, type FleetFixture } from '../../modules/work-entries/test-helpers.js';
@@ -119,5 +121,62 @@ describe('answers kept until the data changes', () => {
     expect(bad.status).toBe(400);
     const again = await t.http().get('/api/work-entries?pageSize=5000').set(bearer(tokens.bookkeeper));
     expect(again.status).toBe(400);
+  });
+
+  describe('requests that meet while an answer is computed', () => {
+    /** Counts the list's computations, each held back a moment so that the requests overlap. */
+    function slowList() {
+      const service = t.app.get(WorkEntriesService);
+      const original = service.list.bind(service);
+      return vi.spyOn(service, 'list').mockImplementation(async (...args) => {
+        await new Promise((resolve) => setTimeout(resolve, 150));
+        return original(...args);
+      });
+    }
+
+    it('computes the answer once for all of them, and each gets it whole', async () => {
+      await addEntry('1.00');
+      const list = slowList();
+      try {
+        const answers = await Promise.all(Array.from({ length: 8 }, () => t.http().get(LIST).set(bearer(tokens.bookkeeper))));
+        expect(answers.map((a) => a.status)).toEqual(Array(8).fill(200));
+        expect(new Set(answers.map((a) => a.text)).size).toBe(1);
+        expect(answers[0]!.body.items.length).toBeGreaterThan(0);
+        expect(list).toHaveBeenCalledTimes(1);
+      } finally {
+        list.mockRestore();
+      }
+    });
+
+    it('computes afresh for each request sent with no-cache', async () => {
+      const list = slowList();
+      try {
+        const answers = await Promise.all(Array.from({ length: 3 }, () => t.http().get(LIST).set(bearer(tokens.bookkeeper)).set('Cache-Control', 'no-cache')));
+        expect(answers.map((a) => a.status)).toEqual([200, 200, 200]);
+        expect(list).toHaveBeenCalledTimes(3);
+      } finally {
+        list.mockRestore();
+      }
+    });
+
+    it('hands a failure to every request that waited for it and keeps nothing', async () => {
+      await addEntry('1.00');
+      const service = t.app.get(WorkEntriesService);
+      const list = vi.spyOn(service, 'list').mockImplementationOnce(async () => {
+        await new Promise((resolve) => setTimeout(resolve, 150));
+        throw conflict('The entries changed while they were read; try again.');
+      });
+      try {
+        const answers = await Promise.all(Array.from({ length: 4 }, () => t.http().get(LIST).set(bearer(tokens.bookkeeper))));
+        expect(answers.map((a) => [a.status, a.body.message])).toEqual(Array(4).fill([409, 'The entries changed while they were read; try again.']));
+        expect(list).toHaveBeenCalledTimes(1);
+        // Nothing was kept: the next request computes the answer.
+        const next = await t.http().get(LIST).set(bearer(tokens.bookkeeper));
+        expect(next.status).toBe(200);
+        expect(list).toHaveBeenCalledTimes(2);
+      } finally {
+        list.mockRestore();
+      }
+    });
   });
 });

@@ -1,7 +1,7 @@
 import { type CallHandler, type ExecutionContext, Injectable, type NestInterceptor, StreamableFile, UseInterceptors, applyDecorators } from '@nestjs/common';
 import type { Request } from 'express';
 import { LRUCache } from 'lru-cache';
-import { type Observable, map, of } from 'rxjs';
+import { type Observable, from, lastValueFrom, map, of } from 'rxjs';
 import type { RequestWithActor } from '../auth/actor.js';
 
 /** What the kept answers may take of the API's memory, in bytes of their JSON. */
@@ -35,6 +35,9 @@ export class ReadCache {
     return [actor.operationId, actor.dataVersion, actor.membershipId, day, req.originalUrl].join('\u0000');
   }
 
+  /** Answers being computed, so that requests arriving meanwhile for the same key wait for that one. */
+  private readonly pending = new Map<string, Promise<Buffer>>();
+
   get(key: string): Buffer | undefined {
     return this.answers.get(key);
   }
@@ -42,11 +45,25 @@ export class ReadCache {
   set(key: string, json: Buffer): void {
     this.answers.set(key, json);
   }
+
+  /**
+   * The answer computed once for every request asking for the same key at the same time: when a page's kept
+   * answer runs out (a write, the minute) under load, one request computes it instead of each of them at once.
+   * A failure reaches every request that waited for it, as each would have met it on its own; nothing is kept.
+   */
+  shared(key: string, compute: () => Promise<Buffer>): Promise<Buffer> {
+    const running = this.pending.get(key);
+    if (running) return running;
+    const computing = compute().finally(() => this.pending.delete(key));
+    this.pending.set(key, computing);
+    return computing;
+  }
 }
 
 /**
  * Runs after the guard, so the caller is known and allowed, and before the route's pipes, so a kept answer
- * skips validating the query too: only a URL that once passed validation has an answer kept. A request
+ * skips validating the query too: only a URL that once passed validation has an answer kept. Requests that
+ * arrive while the same answer is being computed wait for it instead of computing it again. A request
  * sent with `Cache-Control: no-cache` is computed afresh (and its answer kept), as HTTP has it. The answer is
  * kept as the bytes sent and handed to the socket as they are: encoding a string anew for every request made
  * the busiest lists allocate tens of megabytes a second.
@@ -59,15 +76,17 @@ export class ReadCacheInterceptor implements NestInterceptor {
     const req = context.switchToHttp().getRequest<Request & RequestWithActor>();
     const key = this.cache.keyOf(req);
     if (key === null) return next.handle();
-    const kept = freshRequested(req) ? undefined : this.cache.get(key);
-    if (kept !== undefined) return of(asJson(kept));
-    return next.handle().pipe(
-      map((answer: unknown) => {
+    const compute = () =>
+      lastValueFrom(next.handle()).then((answer: unknown) => {
         const json = Buffer.from(JSON.stringify(answer));
         this.cache.set(key, json);
-        return asJson(json);
-      }),
-    );
+        return json;
+      });
+    // Asked afresh, the request computes its own answer rather than wait for one begun before it arrived.
+    if (freshRequested(req)) return from(compute()).pipe(map(asJson));
+    const kept = this.cache.get(key);
+    if (kept !== undefined) return of(asJson(kept));
+    return from(this.cache.shared(key, compute)).pipe(map(asJson));
   }
 }
 
