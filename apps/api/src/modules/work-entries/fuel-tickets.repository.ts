@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, eq, inArray } from 'drizzle-orm';
+import { and, eq, inArray, sql } from 'drizzle-orm';
 import { costEntries, type Executor } from '@hitchbook/db';
 import { DB, type DbHandle } from '../../core/database.js';
 import type { FuelColumns } from './import-rows.js';
@@ -18,13 +18,23 @@ export class FuelTicketsRepository {
     return new Set(rows.map((r) => r.key!));
   }
 
-  /** A ticket whose import key is already stored is left out, never stored twice. */
-  async insertImported(operationId: string, rows: Array<FuelColumns & { importKey: string; createdBy: string }>, tx: Executor): Promise<Array<{ id: string; importKey: string | null }>> {
+  /**
+   * A batch of tickets in one statement, each column as one array parameter (as work entries are imported). A
+   * ticket whose import key is already stored is left out, never stored twice.
+   */
+  async insertImported(operationId: string, rows: Array<FuelColumns & { importKey: string; createdBy: string }>, tx: Executor): Promise<Array<{ id: string; importKey: string }>> {
     if (rows.length === 0) return [];
-    return tx
-      .insert(costEntries)
-      .values(rows.map((r) => ({ ...r, operationId, category: 'fuel' as const })))
-      .onConflictDoNothing({ target: [costEntries.operationId, costEntries.importKey] })
-      .returning({ id: costEntries.id, importKey: costEntries.importKey });
+    const column = <T>(pick: (row: FuelColumns & { importKey: string; createdBy: string }) => T) => sql.param(rows.map(pick));
+    const result = await tx.execute<{ id: string; importKey: string }>(sql`
+      insert into cost_entries (operation_id, category, machine_id, incurred_on, amount, gallons, meter_hours, vendor, paid_by_party_id, notes, import_key, created_by)
+      select ${operationId}::uuid, 'fuel', r.* from unnest(
+        ${column((r) => r.machineId)}::uuid[], ${column((r) => r.incurredOn)}::date[], ${column((r) => r.amount)}::numeric[],
+        ${column((r) => r.gallons)}::numeric[], ${column((r) => r.meterHours)}::numeric[], ${column((r) => r.vendor)}::text[],
+        ${column((r) => r.paidByPartyId)}::uuid[], ${column((r) => r.notes)}::text[], ${column((r) => r.importKey)}::text[],
+        ${column((r) => r.createdBy)}::uuid[]
+      ) as r
+      on conflict (operation_id, import_key) do nothing
+      returning id, import_key as "importKey"`);
+    return result.rows;
   }
 }

@@ -243,9 +243,9 @@ describe('fuel-ticket import', () => {
     expect(first.status).toBe(200);
     expect(first.body).toMatchObject({ kind: 'fuel', total: 2, created: 2 });
     const rows = await t.dbh.db.select().from(costEntries).where(eq(costEntries.operationId, fx.operationId)).orderBy(costEntries.incurredOn);
-    expect(rows.map((r) => [r.machineId, r.category, r.incurredOn, r.gallons, r.amount, r.vendor, r.paidByPartyId, r.meterHours])).toEqual([
-      [fleet.tractor, 'fuel', '2025-05-01', '48.500', '1212.50', 'Fenwold Co-op', fx.households[0], '1201.3'],
-      [fleet.windrower, 'fuel', '2025-05-09', '20.000', '61.40', null, null, null],
+    expect(rows.map((r) => [r.machineId, r.category, r.incurredOn, r.gallons, r.amount, r.vendor, r.paidByPartyId, r.meterHours, r.notes, r.createdBy, r.importKey?.length])).toEqual([
+      [fleet.tractor, 'fuel', '2025-05-01', '48.500', '1212.50', 'Fenwold Co-op', fx.households[0], '1201.3', 'dyed diesel', fx.members.partner.userId, 64],
+      [fleet.windrower, 'fuel', '2025-05-09', '20.000', '61.40', null, null, null, null, fx.members.partner.userId, 64],
     ]);
     const again = await upload(tokens.partner, 'fuel', 'commit', csv, 'tickets.csv');
     expect(again.body).toMatchObject({ created: 0, skipped: 2 });
