@@ -2,7 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import { sql } from 'drizzle-orm';
 import type { Executor } from '@hitchbook/db';
 import { DB, type DbHandle } from '../../core/database.js';
-import { numericArray, uuidArray } from './sql-arrays.js';
+import { numericArray, uuidArray } from '../../common/sql-arrays.js';
 
 // Writes the new family rate sheet that accepted suggestions go into. The rate-sheet feature owns these
 // tables; this is the one write the year-end report makes, every statement scoped by the operation id.

@@ -1,6 +1,7 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { and, eq, inArray, sql } from 'drizzle-orm';
 import { costEntries, type Executor } from '@hitchbook/db';
+import { columnsOf } from '../../common/sql-arrays.js';
 import { DB, type DbHandle } from '../../core/database.js';
 import type { FuelColumns } from './import-rows.js';
 
@@ -24,14 +25,14 @@ export class FuelTicketsRepository {
    */
   async insertImported(operationId: string, rows: Array<FuelColumns & { importKey: string; createdBy: string }>, tx: Executor): Promise<Array<{ id: string; importKey: string }>> {
     if (rows.length === 0) return [];
-    const column = <T>(pick: (row: FuelColumns & { importKey: string; createdBy: string }) => T) => sql.param(rows.map(pick));
+    const column = columnsOf(rows);
     const result = await tx.execute<{ id: string; importKey: string }>(sql`
       insert into cost_entries (operation_id, category, machine_id, incurred_on, amount, gallons, meter_hours, vendor, paid_by_party_id, notes, import_key, created_by)
       select ${operationId}::uuid, 'fuel', r.* from unnest(
-        ${column((r) => r.machineId)}::uuid[], ${column((r) => r.incurredOn)}::date[], ${column((r) => r.amount)}::numeric[],
-        ${column((r) => r.gallons)}::numeric[], ${column((r) => r.meterHours)}::numeric[], ${column((r) => r.vendor)}::text[],
-        ${column((r) => r.paidByPartyId)}::uuid[], ${column((r) => r.notes)}::text[], ${column((r) => r.importKey)}::text[],
-        ${column((r) => r.createdBy)}::uuid[]
+        ${column('uuid', (r) => r.machineId)}, ${column('date', (r) => r.incurredOn)}, ${column('numeric', (r) => r.amount)},
+        ${column('numeric', (r) => r.gallons)}, ${column('numeric', (r) => r.meterHours)}, ${column('text', (r) => r.vendor)},
+        ${column('uuid', (r) => r.paidByPartyId)}, ${column('text', (r) => r.notes)}, ${column('text', (r) => r.importKey)},
+        ${column('uuid', (r) => r.createdBy)}
       ) as r
       on conflict (operation_id, import_key) do nothing
       returning id, import_key as "importKey"`);

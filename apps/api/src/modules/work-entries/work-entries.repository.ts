@@ -3,6 +3,7 @@ import { and, eq, getTableColumns, gte, inArray, lte, ne, or, sql, type Placehol
 import { alias } from 'drizzle-orm/pg-core';
 import { fields, invoiceEntries, machines, meterReadings, parties, users, workEntries, workTypes, type Executor, type NewWorkEntry, type WorkEntry } from '@hitchbook/db';
 import type { WorkEntryFilter } from '@hitchbook/shared/schemas/work-entries';
+import { columnsOf } from '../../common/sql-arrays.js';
 import { DB, type DbHandle } from '../../core/database.js';
 import { statementName } from '../../core/prepared.js';
 import type { EntryColumns } from './entry-draft.js';
@@ -256,7 +257,6 @@ export class WorkEntriesRepository {
     return row!;
   }
 
-  /** Inserts imported rows; a row whose import key is already stored is left out, not duplicated. */
   /**
    * One batch of imported entries in one statement, each column as one array parameter: a multi-row insert
    * built with a parameter per cell costs more to build and bind than PostgreSQL takes to store the rows.
@@ -264,22 +264,22 @@ export class WorkEntriesRepository {
    */
   async insertImported(operationId: string, rows: ImportedEntry[], tx: Executor): Promise<Array<{ id: string; importKey: string }>> {
     if (rows.length === 0) return [];
-    const column = <T>(pick: (row: ImportedEntry) => T) => sql.param(rows.map(pick));
+    const column = columnsOf(rows);
     const instant = (d: Date | null) => d?.toISOString() ?? null;
     const result = await tx.execute<{ id: string; importKey: string }>(sql`
       insert into work_entries (operation_id, work_date, operator_user_id, field_id, work_type_id, power_machine_id, implement_machine_id,
         meter_start, meter_end, started_at, ended_at, hours, operator_hours, acres, miles, loads, each_count, fuel_gallons,
         bill_to_party_id, notes, state, submitted_at, import_key, created_by)
       select ${operationId}::uuid, r.* from unnest(
-        ${column((r) => r.workDate)}::date[], ${column((r) => r.operatorUserId)}::uuid[], ${column((r) => r.fieldId)}::uuid[],
-        ${column((r) => r.workTypeId)}::uuid[], ${column((r) => r.powerMachineId)}::uuid[], ${column((r) => r.implementMachineId)}::uuid[],
-        ${column((r) => r.meterStart)}::numeric[], ${column((r) => r.meterEnd)}::numeric[],
-        ${column((r) => instant(r.startedAt))}::timestamptz[], ${column((r) => instant(r.endedAt))}::timestamptz[],
-        ${column((r) => r.hours)}::numeric[], ${column((r) => r.operatorHours)}::numeric[], ${column((r) => r.acres)}::numeric[],
-        ${column((r) => r.miles)}::numeric[], ${column((r) => r.loads)}::numeric[], ${column((r) => r.eachCount)}::numeric[],
-        ${column((r) => r.fuelGallons)}::numeric[], ${column((r) => r.billToPartyId)}::uuid[], ${column((r) => r.notes)}::text[],
-        ${column((r) => r.state)}::text[], ${column((r) => instant(r.submittedAt))}::timestamptz[], ${column((r) => r.importKey)}::text[],
-        ${column((r) => r.createdBy)}::uuid[]
+        ${column('date', (r) => r.workDate)}, ${column('uuid', (r) => r.operatorUserId)}, ${column('uuid', (r) => r.fieldId)},
+        ${column('uuid', (r) => r.workTypeId)}, ${column('uuid', (r) => r.powerMachineId)}, ${column('uuid', (r) => r.implementMachineId)},
+        ${column('numeric', (r) => r.meterStart)}, ${column('numeric', (r) => r.meterEnd)},
+        ${column('timestamptz', (r) => instant(r.startedAt))}, ${column('timestamptz', (r) => instant(r.endedAt))},
+        ${column('numeric', (r) => r.hours)}, ${column('numeric', (r) => r.operatorHours)}, ${column('numeric', (r) => r.acres)},
+        ${column('numeric', (r) => r.miles)}, ${column('numeric', (r) => r.loads)}, ${column('numeric', (r) => r.eachCount)},
+        ${column('numeric', (r) => r.fuelGallons)}, ${column('uuid', (r) => r.billToPartyId)}, ${column('text', (r) => r.notes)},
+        ${column('text', (r) => r.state)}, ${column('timestamptz', (r) => instant(r.submittedAt))}, ${column('text', (r) => r.importKey)},
+        ${column('uuid', (r) => r.createdBy)}
       ) as r
       on conflict (operation_id, import_key) do nothing
       returning id, import_key as "importKey"`);
