@@ -2,6 +2,7 @@ import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
 import { defineConfig, type Plugin } from 'vite';
 import react from '@vitejs/plugin-react';
+import { compression } from 'vite-plugin-compression2';
 import { pwaPlugin } from './pwa.config';
 
 const apiPort = process.env.API_PORT ?? '3001';
@@ -50,8 +51,16 @@ function reactRouterTreeShaking(): Plugin {
   };
 }
 
+// Brotli and gzip copies of every text file, written once at build for the API to send to browsers that accept
+// them (app.factory.ts): compressing per request would cost the server each time, and nothing at all here.
+const precompressed = compression({
+  algorithms: ['brotliCompress', 'gzip'],
+  include: /\.(js|css|html|svg|json|webmanifest)$/,
+  threshold: 1024,
+});
+
 export default defineConfig(({ mode }) => ({
-  plugins: [react(), pwaPlugin(), reactRouterTreeShaking()],
+  plugins: [react(), pwaPlugin(), reactRouterTreeShaking(), precompressed],
   resolve: {
     alias:
       mode === 'production'

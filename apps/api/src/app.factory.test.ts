@@ -1,17 +1,39 @@
 import { mkdtempSync, mkdirSync, writeFileSync } from 'node:fs';
+import { get, type IncomingHttpHeaders, type Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { brotliCompressSync, brotliDecompressSync, gunzipSync, gzipSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from './test-support/test-app.js';
 
 let t: TestApp;
 let webDist: string;
+const CAB_CHUNK = Buffer.from(`export const passes = [${Array.from({ length: 400 }, (_, i) => `"pass ${i}"`).join(', ')}];`);
+
+/** The bytes as the server sent them: the test client would decode them before a test could look. */
+async function rawGet(path: string, acceptEncoding: string): Promise<{ status?: number; headers: IncomingHttpHeaders; body: Buffer }> {
+  const server = t.app.getHttpServer() as Server;
+  if (!server.listening) await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  const { port } = server.address() as AddressInfo;
+  return new Promise((resolve, reject) => {
+    get({ host: '127.0.0.1', port, path, headers: { 'accept-encoding': acceptEncoding } }, (res) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (chunk: Buffer) => chunks.push(chunk));
+      res.on('end', () => resolve({ status: res.statusCode, headers: res.headers, body: Buffer.concat(chunks) }));
+    }).on('error', reject);
+  });
+}
 
 beforeAll(async () => {
   webDist = mkdtempSync(join(tmpdir(), 'hb-web-'));
   mkdirSync(join(webDist, 'assets'));
   writeFileSync(join(webDist, 'index.html'), '<!doctype html><title>Hitchbook</title><div id="root"></div>');
   writeFileSync(join(webDist, 'assets', 'app-abc123.js'), 'console.log(1)');
+  // A chunk as the web build leaves it: the file and its Brotli and gzip copies beside it.
+  writeFileSync(join(webDist, 'assets', 'cab-def456.js'), CAB_CHUNK);
+  writeFileSync(join(webDist, 'assets', 'cab-def456.js.br'), brotliCompressSync(CAB_CHUNK));
+  writeFileSync(join(webDist, 'assets', 'cab-def456.js.gz'), gzipSync(CAB_CHUNK));
   writeFileSync(join(webDist, 'sw.js'), 'self.addEventListener("fetch", () => {});');
   writeFileSync(join(webDist, 'manifest.webmanifest'), '{"name":"Hitchbook"}');
   mkdirSync(join(webDist, 'api'));
@@ -68,6 +90,25 @@ describe('HTTP surface', () => {
     const asset = await t.http().get('/assets/app-abc123.js');
     expect(asset.status).toBe(200);
     expect(asset.headers['cache-control']).toContain('immutable');
+  });
+
+  it("sends a browser the web app's smallest copy it accepts: Brotli, else gzip, else the file itself", async () => {
+    const brotli = await rawGet('/assets/cab-def456.js', 'gzip, deflate, br');
+    expect(brotli.status).toBe(200);
+    expect(brotli.headers['content-encoding']).toBe('br');
+    expect(brotli.headers['content-type']).toMatch(/^(text|application)\/javascript/);
+    expect(brotli.headers['cache-control']).toContain('immutable');
+    expect(brotli.headers.vary).toMatch(/Accept-Encoding/);
+    expect(brotli.body.length).toBeLessThan(CAB_CHUNK.length / 3);
+    expect(brotliDecompressSync(brotli.body).equals(CAB_CHUNK)).toBe(true);
+
+    const gzip = await rawGet('/assets/cab-def456.js', 'gzip, deflate');
+    expect(gzip.headers['content-encoding']).toBe('gzip');
+    expect(gunzipSync(gzip.body).equals(CAB_CHUNK)).toBe(true);
+
+    const plain = await rawGet('/assets/cab-def456.js', 'identity');
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    expect(plain.body.equals(CAB_CHUNK)).toBe(true);
   });
 
   it('serves the service worker as a script that a phone checks for updates on every start', async () => {

@@ -5,7 +5,8 @@ import { type LogLevel } from '@nestjs/common';
 import { NestFactory } from '@nestjs/core';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import cookieParser from 'cookie-parser';
-import express, { type NextFunction, type Request, type Response } from 'express';
+import type { NextFunction, Request, Response } from 'express';
+import expressStaticGzip from 'express-static-gzip';
 import helmet from 'helmet';
 import { AppModule } from './app.module.js';
 import { ErrorFilter } from './common/errors/error.filter.js';
@@ -84,14 +85,23 @@ function noStore(_req: Request, res: Response, next: NextFunction): void {
   next();
 }
 
-/** The API serves the built web app on the same origin; unknown non-API paths get the app shell. */
+/**
+ * The API serves the built web app on the same origin; unknown non-API paths get the app shell. The build
+ * writes each file's Brotli and gzip copies beside it, and a browser gets the smallest it accepts: on a
+ * phone's weak connection the cab form's code is a third of its size as it was built.
+ */
 function serveWebApp(app: NestExpressApplication, webDist: string): void {
   const index = join(webDist, 'index.html');
   if (!existsSync(index)) return;
-  const files = express.static(webDist, {
+  const files = expressStaticGzip(webDist, {
+    enableBrotli: true,
+    orderPreference: ['br', 'gzip'],
     index: false,
-    setHeaders: (res, path) => {
-      res.setHeader('Cache-Control', path.includes(`${join(webDist, 'assets')}`) ? 'public, max-age=31536000, immutable' : 'no-cache');
+    serveStatic: {
+      index: false,
+      setHeaders: (res, path) => {
+        res.setHeader('Cache-Control', path.includes(`${join(webDist, 'assets')}`) ? 'public, max-age=31536000, immutable' : 'no-cache');
+      },
     },
   });
   const isApi = (req: Request) => req.path.startsWith('/api/') || req.path === '/api';

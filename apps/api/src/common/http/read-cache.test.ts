@@ -123,6 +123,36 @@ describe('answers kept until the data changes', () => {
     expect(again.status).toBe(400);
   });
 
+  it('sends a kept answer gzipped to a client that accepts gzip, and as plain JSON to one that does not', async () => {
+    await addEntry('1.50');
+    const ask = (encoding: string) =>
+      t
+        .http()
+        .get(LIST)
+        .set({ ...bearer(tokens.bookkeeper), 'Accept-Encoding': encoding });
+    const plain = await ask('identity');
+    expect(plain.status).toBe(200);
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    expect(plain.headers.vary).toMatch(/Accept-Encoding/);
+    expect(Number(plain.headers['content-length'])).toBe(Buffer.byteLength(plain.text));
+    expect(plain.text.length).toBeGreaterThanOrEqual(1024);
+
+    // Computed once, then kept: both answers arrive gzipped (Content-Length counts the bytes sent) and the test
+    // client's gunzip gives back the same JSON.
+    for (const encoding of ['gzip, deflate, br', 'br;q=1, gzip;q=0.5']) {
+      const zipped = await ask(encoding);
+      expect(zipped.status).toBe(200);
+      expect(zipped.headers['content-encoding']).toBe('gzip');
+      expect(zipped.headers['content-type']).toMatch(/^application\/json/);
+      expect(Number(zipped.headers['content-length'])).toBeLessThan(plain.text.length / 2);
+      expect(zipped.text).toBe(plain.text);
+    }
+    // A client that refuses gzip outright gets the JSON itself.
+    const refused = await ask('gzip;q=0');
+    expect(refused.headers['content-encoding']).toBeUndefined();
+    expect(refused.text).toBe(plain.text);
+  });
+
   describe('requests that meet while an answer is computed', () => {
     /** Counts the list's computations, each held back a moment so that the requests overlap. */
     function slowList() {

@@ -1,5 +1,7 @@
 import { type CallHandler, type ExecutionContext, Injectable, type NestInterceptor, StreamableFile, UseInterceptors, applyDecorators } from '@nestjs/common';
-import type { Request } from 'express';
+import { promisify } from 'node:util';
+import { gzip } from 'node:zlib';
+import type { Request, Response } from 'express';
 import { LRUCache } from 'lru-cache';
 import { type Observable, from, lastValueFrom, map, of } from 'rxjs';
 import type { RequestWithActor } from '../auth/actor.js';
@@ -11,6 +13,22 @@ const MAX_BYTES = 64 * 1024 * 1024;
  * a statement's time of computing), so none outlives a minute, and the key names the day.
  */
 const TTL_MS = 60_000;
+/** Below this an answer is sent as it is: a small one gains fewer bytes than the gzip header costs to read. */
+const GZIP_FROM_BYTES = 1024;
+
+const gzipAsync = promisify(gzip);
+
+/** An answer as the bytes sent: its JSON, and that JSON gzipped once for the clients that accept it. */
+export interface KeptAnswer {
+  json: Buffer;
+  gzip: Buffer | null;
+}
+
+/** Encodes an answer once for every request it is kept for, on zlib's thread pool rather than the event loop. */
+export async function keptAnswerOf(answer: unknown): Promise<KeptAnswer> {
+  const json = Buffer.from(JSON.stringify(answer));
+  return { json, gzip: json.length >= GZIP_FROM_BYTES ? await gzipAsync(json) : null };
+}
 
 /**
  * Answers of the heaviest reads (list pages, a year's reports), kept as their JSON under the operation's data
@@ -22,9 +40,9 @@ const TTL_MS = 60_000;
  */
 @Injectable()
 export class ReadCache {
-  private readonly answers = new LRUCache<string, Buffer>({
+  private readonly answers = new LRUCache<string, KeptAnswer>({
     maxSize: MAX_BYTES,
-    sizeCalculation: (json, key) => json.length + key.length,
+    sizeCalculation: (answer, key) => answer.json.length + (answer.gzip?.length ?? 0) + key.length,
     ttl: TTL_MS,
   });
 
@@ -36,14 +54,14 @@ export class ReadCache {
   }
 
   /** Answers being computed, so that requests arriving meanwhile for the same key wait for that one. */
-  private readonly pending = new Map<string, Promise<Buffer>>();
+  private readonly pending = new Map<string, Promise<KeptAnswer>>();
 
-  get(key: string): Buffer | undefined {
+  get(key: string): KeptAnswer | undefined {
     return this.answers.get(key);
   }
 
-  set(key: string, json: Buffer): void {
-    this.answers.set(key, json);
+  set(key: string, answer: KeptAnswer): void {
+    this.answers.set(key, answer);
   }
 
   /**
@@ -51,7 +69,7 @@ export class ReadCache {
    * answer runs out (a write, the minute) under load, one request computes it instead of each of them at once.
    * A failure reaches every request that waited for it, as each would have met it on its own; nothing is kept.
    */
-  shared(key: string, compute: () => Promise<Buffer>): Promise<Buffer> {
+  shared(key: string, compute: () => Promise<KeptAnswer>): Promise<KeptAnswer> {
     const running = this.pending.get(key);
     if (running) return running;
     const computing = compute().finally(() => this.pending.delete(key));
@@ -66,32 +84,45 @@ export class ReadCache {
  * arrive while the same answer is being computed wait for it instead of computing it again. A request
  * sent with `Cache-Control: no-cache` is computed afresh (and its answer kept), as HTTP has it. The answer is
  * kept as the bytes sent and handed to the socket as they are: encoding a string anew for every request made
- * the busiest lists allocate tens of megabytes a second.
+ * the busiest lists allocate tens of megabytes a second. A client that accepts gzip (every browser does) gets
+ * the answer gzipped once when it was kept: a page of fifty entries is about a tenth of its JSON on a phone's
+ * connection, and the API writes that much less to each socket.
  */
 @Injectable()
 export class ReadCacheInterceptor implements NestInterceptor {
   constructor(private readonly cache: ReadCache) {}
 
   intercept(context: ExecutionContext, next: CallHandler): Observable<unknown> {
-    const req = context.switchToHttp().getRequest<Request & RequestWithActor>();
+    const http = context.switchToHttp();
+    const req = http.getRequest<Request & RequestWithActor>();
     const key = this.cache.keyOf(req);
     if (key === null) return next.handle();
     const compute = () =>
-      lastValueFrom(next.handle()).then((answer: unknown) => {
-        const json = Buffer.from(JSON.stringify(answer));
-        this.cache.set(key, json);
-        return json;
-      });
+      lastValueFrom(next.handle())
+        .then(keptAnswerOf)
+        .then((answer) => {
+          this.cache.set(key, answer);
+          return answer;
+        });
+    const send = (answer: KeptAnswer) => asJson(answer, req, http.getResponse<Response>());
     // Asked afresh, the request computes its own answer rather than wait for one begun before it arrived.
-    if (freshRequested(req)) return from(compute()).pipe(map(asJson));
+    if (freshRequested(req)) return from(compute()).pipe(map(send));
     const kept = this.cache.get(key);
-    if (kept !== undefined) return of(asJson(kept));
-    return from(this.cache.shared(key, compute)).pipe(map(asJson));
+    if (kept !== undefined) return of(send(kept));
+    return from(this.cache.shared(key, compute)).pipe(map(send));
   }
 }
 
-function asJson(json: Buffer): StreamableFile {
-  return new StreamableFile(json, { type: 'application/json; charset=utf-8', length: json.length });
+function asJson(answer: KeptAnswer, req: Request, res: Response): StreamableFile {
+  let body = answer.json;
+  if (answer.gzip) {
+    res.setHeader('Vary', 'Accept-Encoding');
+    if (req.acceptsEncodings('gzip', 'identity') === 'gzip') {
+      res.setHeader('Content-Encoding', 'gzip');
+      body = answer.gzip;
+    }
+  }
+  return new StreamableFile(body, { type: 'application/json; charset=utf-8', length: body.length });
 }
 
 function freshRequested(req: Request): boolean {
