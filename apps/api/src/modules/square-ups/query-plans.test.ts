@@ -249,10 +249,15 @@ describe('query plans of the work-entry list', () => {
   it("reads a machine's page and totals from its two machine-ordered indexes, without visiting other entries", async () => {
     const sent = await sentStatements(() => t.app.get(WorkEntriesRepository).list(op.operationId, { ...year, machineId: history.tractor, sort: '-date' } as never, {}, { limit: 50, offset: 0 }));
     const scans = await workEntryScansOfSent(sent);
+    expect(scans).toHaveLength(2);
     const indexes = scans.map((scan) => scan.map((n) => n['Index Name']).filter(Boolean));
     for (const used of indexes) expect(used).toEqual(expect.arrayContaining(['work_entries_operation_power_recent_idx', 'work_entries_operation_implement_recent_idx']));
-    // The page is ordered by the index and cut there, so no sort of the machine's year happens.
-    expect(scans[0]!.map((n) => n['Node Type'])).not.toContain('Bitmap Heap Scan');
+    // The page is ordered by the index and cut there, so no sort of the machine's year happens. The page and
+    // its totals are sent at the same time on two connections, so which one comes first varies: the page is the
+    // statement with a limit.
+    const page = await workEntryScansOfSent(sent.filter((s) => readsEntries(s) && /\blimit\b/i.test(s.text)));
+    expect(page).toHaveLength(1);
+    expect(page[0]!.map((n) => n['Node Type'])).not.toContain('Bitmap Heap Scan');
   });
 
   it('reads work entries through an index for an operator who sees only their own entries', async () => {
