@@ -11,7 +11,9 @@ import helmet from 'helmet';
 import { AppModule } from './app.module.js';
 import { ErrorFilter } from './common/errors/error.filter.js';
 import { refuseOversizedJson } from './common/http/json-body-limit.js';
+import { keptAnswersFirst, ReadCache } from './common/http/read-cache.js';
 import type { AppConfig } from './core/config.js';
+import { SessionService } from './modules/auth/session.service.js';
 
 export const JSON_BODY_LIMIT_BYTES = 256 * 1024;
 
@@ -40,6 +42,8 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): Ne
   app.use(cookieParser());
   app.use(requestId);
   app.use('/api', noStore);
+  const sessions = app.get(SessionService);
+  app.use('/api', keptAnswersFirst(app.get(ReadCache), (token) => sessions.actorFromAccessToken(token)));
   if (config.webDist) serveWebApp(app, config.webDist);
   app.setGlobalPrefix('api');
   app.useGlobalFilters(new ErrorFilter());

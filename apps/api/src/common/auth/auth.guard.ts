@@ -26,7 +26,8 @@ export class AuthGuard implements CanActivate {
     const req = context.switchToHttp().getRequest<Request & RequestWithActor>();
     const header = req.headers.authorization;
     if (!header || !header.startsWith('Bearer ')) throw unauthenticated();
-    const actor = await this.sessions.actorFromAccessToken(header.slice('Bearer '.length).trim());
+    // Read already for this request's token when it came by the kept answers (common/http/read-cache.ts).
+    const actor = req.actor ?? (await this.sessions.actorFromAccessToken(header.slice('Bearer '.length).trim()));
     if (!actor) throw new AppError('unauthenticated', 'Your session has ended; sign in again.');
     req.actor = actor;
 

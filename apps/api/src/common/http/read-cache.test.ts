@@ -2,7 +2,9 @@ import { workEntries } from '@hitchbook/db';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { conflict } from '../errors/app-error.js';
 import { WorkEntriesService } from '../../modules/work-entries/work-entries.service.js';
-import { createOperation, signInAll, type OperationFixture } from '../../test-support/fixtures.js';
+import { createOperation, signIn, signInAll, type OperationFixture } from '../../test-support/fixtures.js';
+import { SessionService } from '../../modules/auth/session.service.js';
+import { AuthGuard } from '../auth/auth.guard.js';
 import { createTestApp, type TestApp } from '../../test-support/test-app.js';
 import { createFleet, type FleetFixture } from '../../modules/work-entries/test-helpers.js';
 
@@ -151,6 +153,51 @@ describe('answers kept until the data changes', () => {
     const refused = await ask('gzip;q=0');
     expect(refused.headers['content-encoding']).toBeUndefined();
     expect(refused.text).toBe(plain.text);
+  });
+
+  describe('a kept answer, sent before the request reaches the router', () => {
+    it('comes with the headers every API answer has, and reads the member once per request, kept or computed', async () => {
+      const sessions = t.app.get(SessionService);
+      const lookups = vi.spyOn(sessions, 'actorFromAccessToken');
+      const list = vi.spyOn(t.app.get(WorkEntriesService), 'list');
+      const guarded = vi.spyOn(AuthGuard.prototype, 'canActivate');
+      try {
+        await totalHours(tokens.bookkeeper, { 'Cache-Control': 'no-cache' });
+        expect([lookups.mock.calls.length, guarded.mock.calls.length, list.mock.calls.length]).toEqual([1, 1, 1]);
+        const kept = await t.http().get(LIST).set(bearer(tokens.bookkeeper));
+        expect(kept.status).toBe(200);
+        // The member was read again, and the answer sent without the router's guard running.
+        expect([lookups.mock.calls.length, guarded.mock.calls.length, list.mock.calls.length]).toEqual([2, 1, 1]);
+        expect(kept.headers['cache-control']).toBe('no-store');
+        expect(kept.headers['x-request-id']).toMatch(/^[0-9a-f-]{36}$/);
+        expect(kept.headers['x-content-type-options']).toBe('nosniff');
+        expect(kept.headers['content-type']).toMatch(/^application\/json; charset=utf-8/);
+      } finally {
+        lookups.mockRestore();
+        list.mockRestore();
+        guarded.mockRestore();
+      }
+    });
+
+    it('is refused to a session signed out since, though its member and the data are unchanged', async () => {
+      const { token } = await signIn(t, fx.members.bookkeeper.email);
+      await totalHours(token);
+      const sessionId = (JSON.parse(Buffer.from(token.split('.')[1]!, 'base64url').toString()) as { sid: string }).sid;
+      await t.dbh.pool.query('update auth_sessions set revoked_at = now() where id = $1', [sessionId]);
+      const res = await t.http().get(LIST).set(bearer(token));
+      expect(res.status).toBe(401);
+      // The member's other session still gets the kept answer.
+      expect(Number(await totalHours(tokens.bookkeeper))).toBeGreaterThan(0);
+    });
+
+    it('is never kept for a request the route refuses', async () => {
+      for (let i = 0; i < 2; i++) {
+        const res = await t.http().get(LIST).set(bearer(tokens.customer));
+        expect(res.status).toBe(403);
+      }
+      const forged = await t.http().get(LIST).set(bearer(`${tokens.bookkeeper}x`));
+      expect(forged.status).toBe(401);
+    });
   });
 
   describe('requests that meet while an answer is computed', () => {
