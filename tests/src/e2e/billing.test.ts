@@ -148,6 +148,8 @@ describe('billing a neighbour and getting paid by card', () => {
       await signInAndWait(page, DEMO_SIGN_INS.owner);
       await page.getByTestId('main-nav').getByText('Invoices', { exact: true }).click();
       await page.getByRole('link', { name: 'New invoice' }).click();
+      // The list stays on screen while the new page's code loads, and its filter is also labelled Customer.
+      await page.getByRole('heading', { name: 'New invoice', level: 1 }).waitFor();
       await pickOption(page, 'Customer', NEIGHBOUR);
       await page.getByText(/approved (entry waits|entries wait) to be billed/).waitFor();
       await page.getByLabel('Work from', { exact: true }).fill(day);
