@@ -5,6 +5,7 @@ import type { Role } from '@hitchbook/shared/roles';
 import { AppError, forbidden, unauthenticated } from '../errors/app-error.js';
 import { SessionService } from '../../modules/auth/session.service.js';
 import type { RequestWithActor } from './actor.js';
+import { bearerTokenOf } from './bearer.js';
 import { ALLOWED_ROLES, IS_PUBLIC } from './decorators.js';
 
 /**
@@ -24,10 +25,10 @@ export class AuthGuard implements CanActivate {
     const roles = this.reflector.getAllAndOverride<Role[] | undefined>(ALLOWED_ROLES, targets);
 
     const req = context.switchToHttp().getRequest<Request & RequestWithActor>();
-    const header = req.headers.authorization;
-    if (!header || !header.startsWith('Bearer ')) throw unauthenticated();
+    const token = bearerTokenOf(req);
+    if (token === null) throw unauthenticated();
     // Read already for this request's token when it came by the kept answers (common/http/read-cache.ts).
-    const actor = req.actor ?? (await this.sessions.actorFromAccessToken(header.slice('Bearer '.length).trim()));
+    const actor = req.actor ?? (await this.sessions.actorFromAccessToken(token));
     if (!actor) throw new AppError('unauthenticated', 'Your session has ended; sign in again.');
     req.actor = actor;
 

@@ -5,6 +5,7 @@ import type { NextFunction, Request, Response } from 'express';
 import { LRUCache } from 'lru-cache';
 import { type Observable, from, lastValueFrom, map, of } from 'rxjs';
 import type { Actor, RequestWithActor } from '../auth/actor.js';
+import { bearerTokenOf } from '../auth/bearer.js';
 
 /** What the kept answers may take of the API's memory, in bytes of their JSON. */
 const MAX_BYTES = 64 * 1024 * 1024;
@@ -137,9 +138,9 @@ function asJson(answer: KeptAnswer, req: Request, res: Response): StreamableFile
  */
 export function keptAnswersFirst(cache: ReadCache, actorOf: (token: string) => Promise<Actor | null>) {
   return (req: Request & RequestWithActor, res: Response, next: NextFunction): void => {
-    const header = req.headers.authorization;
-    if (req.method !== 'GET' || !header?.startsWith('Bearer ') || freshRequested(req)) return next();
-    actorOf(header.slice('Bearer '.length).trim()).then(
+    const token = bearerTokenOf(req);
+    if (req.method !== 'GET' || token === null || freshRequested(req)) return next();
+    actorOf(token).then(
       (actor) => {
         if (!actor) return next();
         req.actor = actor;
