@@ -73,7 +73,7 @@ describe('the API killed between the commit of an issue and its reply', () => {
     expect(nextIssue.status).toBe(200);
     expect(await nextIssue.json()).toMatchObject({ number: 2 });
 
-    expect(await billingState(dbh.db, world.fx.operationId)).toEqual({ numbers: { INV: [1, 2] }, entriesOnTwoInvoices: [], partlyIssued: [], lockedByDraft: [] });
+    expect(await billingState(dbh.db, world.fx.operationId)).toEqual({ numbers: { INV: [1, 2] }, entriesOnTwoInvoices: [], partlyIssued: [], draftsMissingEntries: [] });
     const [counter] = await dbh.db.select().from(invoiceCounters).where(and(eq(invoiceCounters.operationId, world.fx.operationId), eq(invoiceCounters.series, 'INV')));
     expect(counter?.nextNumber).toBe(3);
     // Issued once: one audit row, though the request arrived twice.

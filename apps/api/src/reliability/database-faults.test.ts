@@ -58,26 +58,26 @@ async function draftWithOneEntry(): Promise<{ draftId: string; entryId: string }
 const issue = (id: string, key = `issue-${randomUUID()}`) => api.fetch(`/api/invoices/${id}/issue`, { method: 'POST', token, headers: { 'Idempotency-Key': key }, body: '{}' });
 
 /**
- * Holds a row lock on the entry so an issue of it stops at its last steps, with its number already
- * taken, and resolves once the API's transaction is seen waiting there.
+ * Holds the audit log against writes so an issue stops at its last step, with its number already taken,
+ * and resolves once the API's transaction is seen waiting there.
  */
-async function issueHeldAtEntryUpdate(draftId: string, entryId: string) {
+async function issueHeldAtItsAuditRow(draftId: string) {
   const holder = new pg.Client({ connectionString: databaseUrl });
   holder.on('error', () => undefined);
   await holder.connect();
   await holder.query('begin');
-  await holder.query('select id from work_entries where id = $1 for update', [entryId]);
+  await holder.query('lock table audit_log in share mode');
   holders.push(holder);
   const answer = issue(draftId);
   // Awaited by the caller; a case that fails before that must not leave an unhandled rejection behind.
   answer.catch(() => undefined);
-  // Waiting on the entry while holding the updated counter row: the number is taken, the issue not done.
-  await waitFor('the issue to wait on the held entry', async () => {
+  // Waiting on the audit log while holding the updated counter row: the number is taken, the issue not done.
+  await waitFor('the issue to wait on the held audit log', async () => {
     // Inside a transaction the activity view is read once and kept; a fresh look is asked for each time.
     await holder.query('select pg_stat_clear_snapshot()');
     const { rows } = await holder.query<{ pid: number }>(
       `select a.pid from pg_stat_activity a
-       where a.application_name = 'hitchbook-api' and pg_blocking_pids(a.pid) @> array[pg_backend_pid()] and a.query ~* '(invoice_entries|work_entries)'
+       where a.application_name = 'hitchbook-api' and pg_blocking_pids(a.pid) @> array[pg_backend_pid()] and a.query ~* 'audit_log'
          and exists (select 1 from pg_locks l where l.pid = a.pid and l.relation = 'invoice_counters'::regclass and l.mode = 'RowExclusiveLock' and l.granted)`,
     );
     if (rows[0]) return rows[0];
@@ -87,12 +87,13 @@ async function issueHeldAtEntryUpdate(draftId: string, entryId: string) {
   return { answer, holder };
 }
 
+/** Still a draft without a number, still holding its entry, as it was before the issue began. */
 async function expectNothingHalfDone(draftId: string, entryId: string) {
   const [draft] = await dbh.db.select({ status: invoices.status, number: invoices.number }).from(invoices).where(eq(invoices.id, draftId));
   expect(draft).toEqual({ status: 'draft', number: null });
-  expect(await dbh.db.select().from(invoiceEntries).where(eq(invoiceEntries.workEntryId, entryId))).toEqual([]);
+  expect(await dbh.db.select({ invoiceId: invoiceEntries.invoiceId }).from(invoiceEntries).where(eq(invoiceEntries.workEntryId, entryId))).toEqual([{ invoiceId: draftId }]);
   const [entry] = await dbh.db.select({ state: workEntries.state }).from(workEntries).where(eq(workEntries.id, entryId));
-  expect(entry?.state).toBe('approved');
+  expect(entry?.state).toBe('invoiced');
 }
 
 /** The operation's invoices, payments and entry locks as rows, to compare before and after a fault. */
@@ -112,7 +113,7 @@ const health = async () => (await api.fetch('/api/health')).status;
 describe('database faults', () => {
   it('loses nothing when the API’s connections are terminated in the middle of an issue', async () => {
     const { draftId, entryId } = await draftWithOneEntry();
-    const { answer, holder } = await issueHeldAtEntryUpdate(draftId, entryId);
+    const { answer, holder } = await issueHeldAtItsAuditRow(draftId);
     const { rows } = await holder.query<{ terminated: boolean }>(
       `select pg_terminate_backend(pid) as terminated from pg_stat_activity where datname = current_database() and application_name in ('hitchbook-api', 'hitchbook-jobs')`,
     );
@@ -133,7 +134,7 @@ describe('database faults', () => {
     const again = await issue(draftId);
     expect(again.status).toBe(200);
     expect(await again.json()).toMatchObject({ number: 1 });
-    expect(await billingState(dbh.db, world.fx.operationId)).toEqual({ numbers: { INV: [1] }, entriesOnTwoInvoices: [], partlyIssued: [], lockedByDraft: [] });
+    expect(await billingState(dbh.db, world.fx.operationId)).toEqual({ numbers: { INV: [1] }, entriesOnTwoInvoices: [], partlyIssued: [], draftsMissingEntries: [] });
   }, 120_000);
 
   it('keeps every committed row through an immediate stop and restart, answers 503 meanwhile and recovers by itself', async () => {
@@ -145,7 +146,7 @@ describe('database faults', () => {
     // One more issue is on its way when the server goes down.
     const inFlight = await draftWithOneEntry();
     const before = await snapshot();
-    const { answer } = await issueHeldAtEntryUpdate(inFlight.draftId, inFlight.entryId);
+    const { answer } = await issueHeldAtItsAuditRow(inFlight.draftId);
     await cluster.stopImmediately();
 
     expect((await answer).status).toBe(503);
@@ -166,6 +167,6 @@ describe('database faults', () => {
     const resumed = await issue(inFlight.draftId);
     expect(resumed.status).toBe(200);
     expect(await resumed.json()).toMatchObject({ number: 3 });
-    expect(await billingState(dbh.db, world.fx.operationId)).toEqual({ numbers: { INV: [1, 2, 3] }, entriesOnTwoInvoices: [], partlyIssued: [], lockedByDraft: [] });
+    expect(await billingState(dbh.db, world.fx.operationId)).toEqual({ numbers: { INV: [1, 2, 3] }, entriesOnTwoInvoices: [], partlyIssued: [], draftsMissingEntries: [] });
   }, 180_000);
 });

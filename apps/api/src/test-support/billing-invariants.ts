@@ -3,16 +3,16 @@ import type { Executor } from '@hitchbook/db';
 
 /**
  * What must hold for an operation's invoices whatever went wrong while they were issued: numbers per
- * series run 1…N, no work entry is on the lines of two invoices that count (issued, not void), and no
- * invoice is half issued (without a number, lines or locked entries).
+ * series run 1…N, no work entry is on the lines of two invoices that count (issued, not void), no
+ * invoice is half issued (without a number, lines or held entries), and every draft holds the entries it bills.
  */
 export interface BillingState {
   numbers: Record<string, number[]>;
   entriesOnTwoInvoices: string[];
-  /** Issued invoices whose work-entry lines and entry locks disagree. */
+  /** Issued invoices whose work-entry lines and entry holds disagree. */
   partlyIssued: string[];
-  /** Drafts that hold an entry lock: a rolled-back or killed issue must release it. */
-  lockedByDraft: string[];
+  /** Drafts with a work line whose entry they do not hold: a rolled-back or killed issue must leave the holds as they were. */
+  draftsMissingEntries: string[];
 }
 
 export async function billingState(db: Executor, operationId: string): Promise<BillingState> {
@@ -35,14 +35,15 @@ export async function billingState(db: Executor, operationId: string): Promise<B
             and not exists (select 1 from invoice_entries e where e.work_entry_id = l.work_entry_id and e.invoice_id = i.id)
         )
       )`);
-  const lockedByDraft = await db.execute<{ id: string }>(sql`
-    select distinct i.id from invoice_entries e join invoices i on i.id = e.invoice_id
-    where i.operation_id = ${operationId} and i.status = 'draft'`);
+  const draftsMissingEntries = await db.execute<{ id: string }>(sql`
+    select distinct i.id from invoices i join invoice_lines l on l.invoice_id = i.id and l.work_entry_id is not null
+    where i.operation_id = ${operationId} and i.status = 'draft'
+      and not exists (select 1 from invoice_entries e where e.work_entry_id = l.work_entry_id and e.invoice_id = i.id)`);
   return {
     numbers,
     entriesOnTwoInvoices: twice.rows.map((r) => r.work_entry_id),
     partlyIssued: partly.rows.map((r) => r.id),
-    lockedByDraft: lockedByDraft.rows.map((r) => r.id),
+    draftsMissingEntries: draftsMissingEntries.rows.map((r) => r.id),
   };
 }
 

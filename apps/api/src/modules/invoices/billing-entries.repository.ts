@@ -6,12 +6,16 @@ import type { InvoiceEntryDto } from '@hitchbook/shared/schemas/invoices';
 import type { EntryToBill } from './draft-pricing.js';
 import { numberLabel } from './invoice-numbers.js';
 
-/** The work entries side of billing: which entries can be billed, and locking them to an invoice. */
+/**
+ * The work entries side of billing: which entries can be billed, and holding them for an invoice. A draft
+ * holds its entries from the moment it is made (state invoiced, one invoice_entries row each), so issuing
+ * writes nothing per entry; deleting the draft or voiding the invoice lets them go.
+ */
 @Injectable()
 export class BillingEntriesRepository {
   constructor(@Inject(DB) private readonly dbh: DbHandle) {}
 
-  /** Approved entries for the party in the date range that no issued invoice bills yet. */
+  /** Approved entries for the party in the date range that no invoice, draft or issued, holds. */
   async unbilled(operationId: string, partyId: string, from: string, to: string, executor: Executor = this.dbh.db): Promise<EntryToBill[]> {
     return executor
       .select({
@@ -56,7 +60,7 @@ export class BillingEntriesRepository {
   /**
    * Moves the entries to invoiced, only those still approved for this party at the version the draft priced,
    * and answers them as the invoice shows them, in its order (the rows `InvoicesRepository.entries` reads).
-   * An answer shorter than `entries` means some were not billable: the caller must roll the transaction back.
+   * An answer shorter than `entries` means some changed while the draft was priced: the caller must roll back.
    * One statement whatever the number of entries: the ids and versions travel as two arrays.
    */
   async markInvoiced(operationId: string, partyId: string, entries: Array<{ id: string; version: number }>, tx: Executor): Promise<InvoiceEntryDto[]> {
@@ -80,7 +84,21 @@ export class BillingEntriesRepository {
     return result.rows;
   }
 
-  /** Voiding: the invoice lets go of its entries, which are approved and billable again. */
+  /**
+   * Work lines of the invoice whose entry it does not hold. None for any draft made since drafts hold their
+   * entries; issuing refuses a draft that has some rather than bill an entry nothing protects.
+   */
+  async unheldLines(operationId: string, invoiceId: string, tx: Executor): Promise<Array<{ workDate: string | null; fieldName: string | null }>> {
+    const result = await tx.execute<{ workDate: string | null; fieldName: string | null }>(sql`
+      select distinct l.work_date::text as "workDate", l.field_name as "fieldName"
+      from invoice_lines l
+      where l.operation_id = ${operationId} and l.invoice_id = ${invoiceId} and l.work_entry_id is not null
+        and not exists (select 1 from invoice_entries ie where ie.work_entry_id = l.work_entry_id and ie.invoice_id = ${invoiceId})
+      order by 1, 2`);
+    return result.rows;
+  }
+
+  /** Deleting a draft or voiding an invoice: it lets go of its entries, which are approved and billable again. */
   async release(operationId: string, invoiceId: string, tx: Executor): Promise<string[]> {
     const released = await tx
       .delete(invoiceEntries)

@@ -1,6 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import type { Decimal } from 'decimal.js';
-import type { InvoiceLine } from '@hitchbook/db';
+import { pgErrorOf, UNIQUE_VIOLATION, type InvoiceLine } from '@hitchbook/db';
 import { Dec } from '@hitchbook/shared/decimal';
 import { roundToCent, toMoneyString } from '@hitchbook/shared/money';
 import type { InvoiceDraftCreate, InvoiceDraftUpdate, InvoiceDto } from '@hitchbook/shared/schemas/invoices';
@@ -22,7 +22,11 @@ type NewLine = Omit<InvoiceLine, 'id' | 'operationId' | 'invoiceId'>;
 const OWNER_LINE_KINDS: InvoiceLine['kind'][] = ['adjustment', 'discount'];
 const sum = (amounts: string[]): Decimal => amounts.reduce<Decimal>((total, a) => total.plus(a), new Dec(0));
 
-/** Drafts: priced by the engine from approved entries, adjusted by the owner, never numbered. */
+/**
+ * Drafts: priced by the engine from approved entries, adjusted by the owner, never numbered. A draft holds
+ * the entries it bills: they are invoiced, locked against edits and left out of other drafts until the draft
+ * is deleted, so issuing it has nothing to write per entry.
+ */
 @Injectable()
 export class InvoiceDraftsService {
   constructor(
@@ -47,28 +51,43 @@ export class InvoiceDraftsService {
     });
     if (!priced.ok) throw new AppError('validation', 'Some entries cannot be priced.', priced.issues);
 
-    const id = await this.dbh.db.transaction(async (tx) => {
-      const invoice = await this.repo.insert(
-        {
-          operationId,
-          kind: 'invoice',
-          series: SERIES.invoice,
-          partyId: party.id,
-          status: 'draft',
-          periodFrom: input.from,
-          periodTo: input.to,
-          termsDays: priced.termsDays,
-          subtotal: priced.subtotal,
-          total: priced.subtotal,
-          notes: input.notes,
-          createdBy: actor.userId,
-        },
-        tx,
-      );
-      await this.repo.insertLines(operationId, invoice.id, priced.lines.map((line, i) => ({ ...line, position: i + 1 })), tx);
-      await this.audit.record(this.audit.byActor(actor, 'invoice.drafted', 'invoice', invoice.id, { after: { partyId: party.id, from: input.from, to: input.to, subtotal: priced.subtotal, entries: toBill.length } }), tx);
-      return invoice.id;
-    });
+    const held = toBill.map((e) => ({ id: e.id, version: e.version }));
+    let id: string;
+    try {
+      id = await this.dbh.db.transaction(async (tx) => {
+        const invoice = await this.repo.insert(
+          {
+            operationId,
+            kind: 'invoice',
+            series: SERIES.invoice,
+            partyId: party.id,
+            status: 'draft',
+            periodFrom: input.from,
+            periodTo: input.to,
+            termsDays: priced.termsDays,
+            subtotal: priced.subtotal,
+            total: priced.subtotal,
+            notes: input.notes,
+            createdBy: actor.userId,
+          },
+          tx,
+        );
+        await this.repo.insertLines(operationId, invoice.id, priced.lines.map((line, i) => ({ ...line, position: i + 1 })), tx);
+        // The primary key of invoice_entries refuses an entry another draft took a moment ago, even when
+        // two drafts are made at the same moment: the second waits for the first and then fails here.
+        await this.entries.claim(operationId, invoice.id, held.map((e) => e.id), tx);
+        const moved = await this.entries.markInvoiced(operationId, party.id, held, tx);
+        if (moved.length !== held.length) throw conflict('Some of these entries were changed while the draft was being made; make the draft again.');
+        await this.audit.record(this.audit.byActor(actor, 'invoice.drafted', 'invoice', invoice.id, { after: { partyId: party.id, from: input.from, to: input.to, subtotal: priced.subtotal, entries: toBill.length } }), tx);
+        return invoice.id;
+      });
+    } catch (err) {
+      const pg = pgErrorOf(err);
+      if (pg?.code === UNIQUE_VIOLATION && pg.constraint === 'invoice_entries_pkey') {
+        throw conflict('Some of these entries went onto another invoice while this draft was being made; make the draft again to bill what is left.');
+      }
+      throw err;
+    }
     return this.views.detailOrThrow(wholeOperation(operationId), id);
   }
 
@@ -161,8 +180,9 @@ export class InvoiceDraftsService {
       const invoice = await this.repo.lock(actor.operationId, id, tx);
       if (!invoice) throw notFound('No such invoice.');
       if (invoice.status !== 'draft') throw conflict('Only drafts can be deleted; void an issued invoice instead.');
+      const released = await this.entries.release(actor.operationId, id, tx);
       await this.repo.remove(actor.operationId, id, tx);
-      await this.audit.record(this.audit.byActor(actor, 'invoice.draft-deleted', 'invoice', id, { before: { partyId: invoice.partyId, total: invoice.total } }), tx);
+      await this.audit.record(this.audit.byActor(actor, 'invoice.draft-deleted', 'invoice', id, { before: { partyId: invoice.partyId, total: invoice.total }, after: { released } }), tx);
     });
   }
 }

@@ -1,4 +1,6 @@
+import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { invoiceEntries, workEntries } from '@hitchbook/db';
 import { createOperation, signInAll, type OperationFixture } from '../../test-support/fixtures.js';
 import { createTestApp, type TestApp } from '../../test-support/test-app.js';
 import { addEntry, addNeighbourSheet, addSheet, createBillingWorld, type BillingWorld } from './billing-world.fixture.js';
@@ -128,6 +130,30 @@ describe('invoice drafts', () => {
     expect((await t.http().patch(`/api/invoices/${draft.body.id}`).set(bearer(tokens.partner)).send({ version: fewer.body.version, notes: 'x' })).status).toBe(403);
     expect((await t.http().delete(`/api/invoices/${draft.body.id}`).set(bearer(tokens.owner))).status).toBe(204);
     expect((await t.http().get(`/api/invoices/${draft.body.id}`).set(bearer(tokens.owner))).status).toBe(404);
+  });
+
+  it('holds its entries until it is deleted: they are invoiced, cannot change, and no other draft takes them', async () => {
+    const held = await mowing('2025-09-02', '12.000');
+    const draft = await t.http().post('/api/invoices/drafts').set(bearer(tokens.owner)).send({ partyId: neighbour, from: '2025-09-01', to: '2025-09-30' });
+    expect(draft.status).toBe(201);
+    const [row] = await t.dbh.db.select({ state: workEntries.state, version: workEntries.version }).from(workEntries).where(eq(workEntries.id, held));
+    expect(row).toEqual({ state: 'invoiced', version: 2 });
+    expect(await t.dbh.db.select({ invoiceId: invoiceEntries.invoiceId }).from(invoiceEntries).where(eq(invoiceEntries.workEntryId, held))).toEqual([{ invoiceId: draft.body.id }]);
+
+    const reopened = await t.http().post(`/api/work-entries/${held}/reopen`).set(bearer(tokens.owner)).send({ version: 2 });
+    expect(reopened.status).toBe(409);
+    expect(reopened.body.message).toContain('delete the draft');
+    const second = await t.http().post('/api/invoices/drafts').set(bearer(tokens.owner)).send({ partyId: neighbour, from: '2025-09-01', to: '2025-09-30' });
+    expect(second.status).toBe(400);
+
+    expect((await t.http().delete(`/api/invoices/${draft.body.id}`).set(bearer(tokens.owner))).status).toBe(204);
+    const [freed] = await t.dbh.db.select({ state: workEntries.state }).from(workEntries).where(eq(workEntries.id, held));
+    expect(freed?.state).toBe('approved');
+    expect(await t.dbh.db.select().from(invoiceEntries).where(eq(invoiceEntries.workEntryId, held))).toEqual([]);
+    const again = await t.http().post('/api/invoices/drafts').set(bearer(tokens.owner)).send({ partyId: neighbour, from: '2025-09-01', to: '2025-09-30' });
+    expect(again.status).toBe(201);
+    expect(again.body.entries.map((e: { id: string }) => e.id)).toEqual([held]);
+    await t.http().delete(`/api/invoices/${again.body.id}`).set(bearer(tokens.owner));
   });
 
   it('never lets anyone but the owner draft', async () => {

@@ -2,7 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import type { Decimal } from 'decimal.js';
 import { sql } from 'drizzle-orm';
 import type Stripe from 'stripe';
-import { pgErrorOf, UNIQUE_VIOLATION, type Executor, type Invoice, type InvoiceLine } from '@hitchbook/db';
+import type { Executor, Invoice } from '@hitchbook/db';
 import { Dec } from '@hitchbook/shared/decimal';
 import { toMoneyString } from '@hitchbook/shared/money';
 import type { CreditNoteCreate, InvoiceDto } from '@hitchbook/shared/schemas/invoices';
@@ -29,19 +29,9 @@ interface Saved {
   known?: KnownParts;
 }
 
-function billedEntries(lines: InvoiceLine[]): Array<{ id: string; version: number; label: string }> {
-  const byId = new Map<string, { id: string; version: number; label: string }>();
-  for (const l of lines) {
-    if (!l.workEntryId || byId.has(l.workEntryId)) continue;
-    const version = (l.details as { entryVersion?: number } | null)?.entryVersion ?? 0;
-    byId.set(l.workEntryId, { id: l.workEntryId, version, label: `${l.workDate} ${l.fieldName ?? ''}`.trim() });
-  }
-  return [...byId.values()];
-}
-
 /**
- * Issuing, voiding and crediting: each in one transaction, so a failure anywhere leaves no number taken,
- * no entry locked and no line changed. Issued documents are never edited afterwards.
+ * Issuing, voiding and crediting: each in one transaction, so a failure anywhere leaves no number taken
+ * and no line changed. Issued documents are never edited afterwards.
  */
 @Injectable()
 export class InvoiceIssueService {
@@ -57,70 +47,56 @@ export class InvoiceIssueService {
   async issue(actor: Actor, id: string, body: { version?: number }, idempotencyKey?: string): Promise<InvoiceDto> {
     const operationId = actor.operationId;
     const remembered = idempotencyKey ? { operationId, key: idempotencyKey, route: 'POST /api/invoices/:id/issue', request: { id, version: body.version ?? null } } : null;
-    let billing: string[] = [];
-    try {
-      const saved = await this.dbh.db.transaction(async (tx): Promise<Saved> => {
-        if (remembered) {
-          const earlier = await claimIdempotencyKey<Saved>(tx, remembered);
-          if (earlier) return earlier;
-        }
-        const invoice = await this.repo.lock(operationId, id, tx);
-        if (!invoice) throw notFound('No such invoice.');
-        if (invoice.status !== 'draft') {
-          throw conflict(invoice.status === 'void' ? 'This invoice is void.' : `This invoice was already issued as ${numberLabel(invoice.series, invoice.number)}.`);
-        }
-        if (body.version !== undefined && body.version !== invoice.version) throw conflict('This draft was changed since you loaded it; reload it before issuing.');
-
-        const lines = await this.repo.lines(operationId, id, tx);
-        if (lines.length === 0) throw conflict('This draft has no lines; add work or a line before issuing it.');
-        const entries = billedEntries(lines);
-        billing = entries.map((e) => e.id);
-        const party = (await this.repo.party(operationId, invoice.partyId, tx))!;
-        const issuer = await this.repo.operation(operationId, tx);
-        const number = await takeNextNumber(tx, operationId, invoice.series);
-        // The primary key of invoice_entries refuses an entry another invoice already bills, even when
-        // two issues run at the same moment: the second waits for the first and then fails here.
-        await this.entries.claim(operationId, id, billing, tx);
-        const moved = await this.entries.markInvoiced(operationId, invoice.partyId, entries, tx);
-        if (moved.length !== entries.length) {
-          const movedIds = new Set(moved.map((m) => m.id));
-          const stale = entries.filter((e) => !movedIds.has(e.id)).map((e) => e.label);
-          throw conflict(`These entries are no longer approved, or changed since the draft was made: ${stale.join('; ')}. Delete this draft and make a new one.`);
-        }
-        await this.repo.update(
-          operationId,
-          id,
-          {
-            status: 'issued',
-            number,
-            issueDate: sql`current_date`,
-            dueDate: sql`current_date + ${invoice.termsDays}::int`,
-            issuerSnapshot: snapshotOf(issuer),
-            partySnapshot: snapshotOf(party),
-            issuedAt: new Date(),
-            issuedBy: actor.userId,
-            version: invoice.version + 1,
-          },
-          tx,
-        );
-        await this.audit.record(
-          this.audit.byActor(actor, 'invoice.issued', 'invoice', id, { after: { number: numberLabel(invoice.series, number), total: invoice.total, entries: billing } }),
-          tx,
-        );
-        if (remembered) await saveIdempotentResult(tx, remembered, { invoiceId: id });
-        return { invoiceId: id, fresh: true, known: { lines, entries: moved } };
-      });
-      if (saved.fresh) killPointAfterCommit('invoice-issue');
-      return await this.views.detailOrThrow(wholeOperation(operationId), saved.invoiceId, undefined, saved.known);
-    } catch (err) {
-      const pg = pgErrorOf(err);
-      if (pg?.code === UNIQUE_VIOLATION && pg.constraint === 'invoice_entries_pkey') {
-        const clashes = await this.entries.billedElsewhere(operationId, billing);
-        const named = clashes.map((c) => `${c.entryId} (on ${c.numberLabel ?? 'another invoice'})`).join(', ');
-        throw conflict(`Some entries are already billed: ${named || 'by an invoice issued a moment ago'}. Delete this draft and make a new one.`);
+    const saved = await this.dbh.db.transaction(async (tx): Promise<Saved> => {
+      if (remembered) {
+        const earlier = await claimIdempotencyKey<Saved>(tx, remembered);
+        if (earlier) return earlier;
       }
-      throw err;
-    }
+      const invoice = await this.repo.lock(operationId, id, tx);
+      if (!invoice) throw notFound('No such invoice.');
+      if (invoice.status !== 'draft') {
+        throw conflict(invoice.status === 'void' ? 'This invoice is void.' : `This invoice was already issued as ${numberLabel(invoice.series, invoice.number)}.`);
+      }
+      if (body.version !== undefined && body.version !== invoice.version) throw conflict('This draft was changed since you loaded it; reload it before issuing.');
+
+      const lines = await this.repo.lines(operationId, id, tx);
+      if (lines.length === 0) throw conflict('This draft has no lines; add work or a line before issuing it.');
+      // The draft holds its entries since it was made, and they cannot change while it does: nothing to
+      // write per entry here, only a check that none slipped out of its hold.
+      const unheld = await this.entries.unheldLines(operationId, id, tx);
+      if (unheld.length > 0) {
+        const named = unheld.map((l) => `${l.workDate ?? ''} ${l.fieldName ?? ''}`.trim()).join('; ');
+        throw conflict(`This draft no longer holds some of its entries: ${named}. Delete this draft and make a new one.`);
+      }
+      const party = (await this.repo.party(operationId, invoice.partyId, tx))!;
+      const issuer = await this.repo.operation(operationId, tx);
+      const number = await takeNextNumber(tx, operationId, invoice.series);
+      await this.repo.update(
+        operationId,
+        id,
+        {
+          status: 'issued',
+          number,
+          issueDate: sql`current_date`,
+          dueDate: sql`current_date + ${invoice.termsDays}::int`,
+          issuerSnapshot: snapshotOf(issuer),
+          partySnapshot: snapshotOf(party),
+          issuedAt: new Date(),
+          issuedBy: actor.userId,
+          version: invoice.version + 1,
+        },
+        tx,
+      );
+      const billed = [...new Set(lines.map((l) => l.workEntryId).filter((e): e is string => e !== null))];
+      await this.audit.record(
+        this.audit.byActor(actor, 'invoice.issued', 'invoice', id, { after: { number: numberLabel(invoice.series, number), total: invoice.total, entries: billed } }),
+        tx,
+      );
+      if (remembered) await saveIdempotentResult(tx, remembered, { invoiceId: id });
+      return { invoiceId: id, fresh: true, known: { lines } };
+    });
+    if (saved.fresh) killPointAfterCommit('invoice-issue');
+    return this.views.detailOrThrow(wholeOperation(operationId), saved.invoiceId, undefined, saved.known);
   }
 
   /** A void invoice keeps its number; its entries are approved and billable again, and its open pay links are expired. */

@@ -19,7 +19,7 @@ export function requireEntryAccess(actor: Actor, action: EntryAction, entry: Pic
 
   const billed = onInvoice || entry.state === 'invoiced' || entry.state === 'squared';
   if (billed) {
-    throw conflict(entry.state === 'squared' ? 'This entry is settled in a square-up and can no longer change.' : 'This entry is on an invoice and can no longer change.');
+    throw conflict(entry.state === 'squared' ? 'This entry is settled in a square-up and can no longer change.' : 'This entry is on an invoice or an invoice draft and can no longer change; delete the draft, or void the invoice, to free it.');
   }
   switch (action) {
     case 'edit':

@@ -239,8 +239,8 @@ export class WorkEntriesRepository {
   }
 
   /**
-   * Locks the entry for the rest of the transaction and tells whether an issued invoice bills it:
-   * billing takes the same lock, so an entry cannot be changed and invoiced at once.
+   * Locks the entry for the rest of the transaction and tells whether an invoice or a draft holds it:
+   * drafting takes the same lock, so an entry cannot be changed and put on a draft at once.
    */
   async lockForChange(operationId: string, id: string, tx: Executor): Promise<{ entry: WorkEntry; onInvoice: boolean } | undefined> {
     const [entry] = await tx.select().from(workEntries).where(and(eq(workEntries.operationId, operationId), eq(workEntries.id, id))).for('update');

@@ -50,6 +50,6 @@ export const ENTRY_STATE_LABELS = {
   draft: 'Draft',
   submitted: 'Submitted',
   approved: 'Approved',
-  invoiced: 'Invoiced',
+  invoiced: 'On invoice',
   squared: 'Squared up',
 } as const;

@@ -4,7 +4,7 @@ export const STATE_LABELS: Record<WorkEntryState, string> = {
   draft: 'Draft',
   submitted: 'Submitted',
   approved: 'Approved',
-  invoiced: 'Invoiced',
+  invoiced: 'On invoice',
   squared: 'Squared up',
 };
 

@@ -16,7 +16,7 @@ export function DeleteDraftModal({ invoice, opened, onClose, onDeleted }: Delete
   return (
     <ActionModal opened={opened} onClose={onClose} title="Delete this draft?">
       <Stack gap="md">
-        <Text>Nothing was numbered or sent. Its work entries stay approved and can go on another invoice.</Text>
+        <Text>Nothing was numbered or sent. The draft lets go of its work entries: approved again, they can be corrected or go on another invoice.</Text>
         <FormErrorAlert message={remove.error?.message ?? null} />
         <Group justify="flex-end">
           <Button variant="default" onClick={onClose}>

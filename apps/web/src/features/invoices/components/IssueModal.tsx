@@ -27,7 +27,7 @@ export function IssueModal({ invoice, opened, onClose, onIssued }: IssueModalPro
           <List size="sm" spacing={4}>
             <List.Item>The invoice takes the next number, and its lines and rates are frozen.</List.Item>
             <List.Item>It cannot be edited afterwards: a mistake is corrected by voiding it or with a credit note.</List.Item>
-            <List.Item>Its work entries are marked invoiced and cannot be billed again.</List.Item>
+            <List.Item>Its work entries, held by the draft since it was made, stay on this invoice and cannot be billed again.</List.Item>
           </List>
         </Alert>
         <FormErrorAlert message={issue.error?.message ?? null} />

@@ -108,8 +108,9 @@ function NewInvoiceForm() {
               <TextInput type="date" label="Work to" {...form.getInputProps('to')} />
             </SimpleGrid>
             <Text size="sm" c="dimmed">
-              The invoice takes the customer&apos;s approved work entries in these dates that are on no other invoice, each priced
-              with the rate sheet in force on its day.
+              The invoice takes the customer&apos;s approved work entries in these dates that are on no other invoice or draft, each
+              priced with the rate sheet in force on its day. The draft holds them: they cannot be edited or billed elsewhere until it
+              is deleted.
             </Text>
             <Textarea label="Note on the invoice (optional)" autosize minRows={2} {...form.getInputProps('notes')} />
           </Stack>
