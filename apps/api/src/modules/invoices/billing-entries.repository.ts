@@ -2,7 +2,6 @@ import { Inject, Injectable } from '@nestjs/common';
 import { and, asc, eq, gte, inArray, lte, notExists, sql } from 'drizzle-orm';
 import { fields, invoiceEntries, invoices, workEntries, workTypes, type Executor } from '@hitchbook/db';
 import { DB, type DbHandle } from '../../core/database.js';
-import type { InvoiceEntryDto } from '@hitchbook/shared/schemas/invoices';
 import type { EntryToBill } from './draft-pricing.js';
 import { numberLabel } from './invoice-numbers.js';
 
@@ -59,29 +58,22 @@ export class BillingEntriesRepository {
 
   /**
    * Moves the entries to invoiced, only those still approved for this party at the version the draft priced,
-   * and answers them as the invoice shows them, in its order (the rows `InvoicesRepository.entries` reads).
-   * An answer shorter than `entries` means some changed while the draft was priced: the caller must roll back.
-   * One statement whatever the number of entries: the ids and versions travel as two arrays.
+   * and answers the ids moved. An answer shorter than `entries` means some changed while the draft was priced:
+   * the caller must roll back. One statement whatever the number of entries: ids and versions travel as two arrays.
    */
-  async markInvoiced(operationId: string, partyId: string, entries: Array<{ id: string; version: number }>, tx: Executor): Promise<InvoiceEntryDto[]> {
+  async markInvoiced(operationId: string, partyId: string, entries: Array<{ id: string; version: number }>, tx: Executor): Promise<string[]> {
     if (entries.length === 0) return [];
     // The party is checked on the moved rows, not in the update's filter: there the planner would read all of
     // the party's approved entries through its index rather than the few by id.
-    const result = await tx.execute<InvoiceEntryDto & Record<string, unknown>>(sql`
+    const result = await tx.execute<{ id: string; bill_to_party_id: string }>(sql`
       with moved as (
         update work_entries we
         set state = 'invoiced', version = we.version + 1, updated_at = now()
         from unnest(${sql.param(entries.map((e) => e.id))}::uuid[], ${sql.param(entries.map((e) => e.version))}::int[]) as priced(id, version)
         where we.operation_id = ${operationId} and we.id = priced.id and we.state = 'approved' and we.version = priced.version
-        returning we.id, we.bill_to_party_id, we.work_date, we.field_id, we.work_type_id, we.hours, we.acres, we.miles, we.loads, we.each_count)
-      select m.id, m.work_date::text as "workDate", f.name as "fieldName", wt.name as "workTypeName",
-             m.hours, m.acres, m.miles, m.loads, m.each_count as "eachCount"
-      from moved m
-      join fields f on f.operation_id = ${operationId} and f.id = m.field_id
-      join work_types wt on wt.operation_id = ${operationId} and wt.id = m.work_type_id
-      where m.bill_to_party_id = ${partyId}
-      order by m.work_date, f.name, m.id`);
-    return result.rows;
+        returning we.id, we.bill_to_party_id)
+      select id from moved where bill_to_party_id = ${partyId}`);
+    return result.rows.map((r) => r.id);
   }
 
   /**

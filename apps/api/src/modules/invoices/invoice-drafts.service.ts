@@ -78,7 +78,7 @@ export class InvoiceDraftsService {
         await this.entries.claim(operationId, invoice.id, held.map((e) => e.id), tx);
         const moved = await this.entries.markInvoiced(operationId, party.id, held, tx);
         if (moved.length !== held.length) throw conflict('Some of these entries were changed while the draft was being made; make the draft again.');
-        await this.audit.record(this.audit.byActor(actor, 'invoice.drafted', 'invoice', invoice.id, { after: { partyId: party.id, from: input.from, to: input.to, subtotal: priced.subtotal, entries: toBill.length } }), tx);
+        await this.audit.record(this.audit.byActor(actor, 'invoice.drafted', 'invoice', invoice.id, { after: { partyId: party.id, from: input.from, to: input.to, subtotal: priced.subtotal, entries: moved } }), tx);
         return invoice.id;
       });
     } catch (err) {

@@ -18,15 +18,13 @@ import { BillingEntriesRepository } from './billing-entries.repository.js';
 import { claimIdempotencyKey, saveIdempotentResult } from './idempotency.js';
 import { snapshotOf } from './invoice.dto.js';
 import { numberLabel, SERIES, takeNextNumber } from './invoice-numbers.js';
-import { InvoiceViews, type KnownParts } from './invoice-views.service.js';
+import { InvoiceViews } from './invoice-views.service.js';
 import { InvoicesRepository } from './invoices.repository.js';
 
 interface Saved {
   invoiceId: string;
   /** False when an earlier request with the same Idempotency-Key did the work. */
   fresh?: boolean;
-  /** What this request read and wrote of the invoice under its lock (absent when replayed). */
-  known?: KnownParts;
 }
 
 /**
@@ -59,17 +57,15 @@ export class InvoiceIssueService {
       }
       if (body.version !== undefined && body.version !== invoice.version) throw conflict('This draft was changed since you loaded it; reload it before issuing.');
 
-      const lines = await this.repo.lines(operationId, id, tx);
-      if (lines.length === 0) throw conflict('This draft has no lines; add work or a line before issuing it.');
+      const facts = await this.repo.issueFacts(operationId, id, invoice.partyId, tx);
+      if (facts.lines === 0) throw conflict('This draft has no lines; add work or a line before issuing it.');
       // The draft holds its entries since it was made, and they cannot change while it does: nothing to
-      // write per entry here, only a check that none slipped out of its hold.
-      const unheld = await this.entries.unheldLines(operationId, id, tx);
-      if (unheld.length > 0) {
+      // write per entry here, only a check that none slipped out of its hold (it holds no entry it does not bill).
+      if (facts.held !== facts.billed) {
+        const unheld = await this.entries.unheldLines(operationId, id, tx);
         const named = unheld.map((l) => `${l.workDate ?? ''} ${l.fieldName ?? ''}`.trim()).join('; ');
         throw conflict(`This draft no longer holds some of its entries: ${named}. Delete this draft and make a new one.`);
       }
-      const party = (await this.repo.party(operationId, invoice.partyId, tx))!;
-      const issuer = await this.repo.operation(operationId, tx);
       const number = await takeNextNumber(tx, operationId, invoice.series);
       await this.repo.update(
         operationId,
@@ -79,24 +75,20 @@ export class InvoiceIssueService {
           number,
           issueDate: sql`current_date`,
           dueDate: sql`current_date + ${invoice.termsDays}::int`,
-          issuerSnapshot: snapshotOf(issuer),
-          partySnapshot: snapshotOf(party),
+          issuerSnapshot: facts.issuer,
+          partySnapshot: facts.party,
           issuedAt: new Date(),
           issuedBy: actor.userId,
           version: invoice.version + 1,
         },
         tx,
       );
-      const billed = [...new Set(lines.map((l) => l.workEntryId).filter((e): e is string => e !== null))];
-      await this.audit.record(
-        this.audit.byActor(actor, 'invoice.issued', 'invoice', id, { after: { number: numberLabel(invoice.series, number), total: invoice.total, entries: billed } }),
-        tx,
-      );
+      await this.audit.record(this.audit.byActor(actor, 'invoice.issued', 'invoice', id, { after: { number: numberLabel(invoice.series, number), total: invoice.total, entries: facts.billed } }), tx);
       if (remembered) await saveIdempotentResult(tx, remembered, { invoiceId: id });
-      return { invoiceId: id, fresh: true, known: { lines } };
+      return { invoiceId: id, fresh: true };
     });
     if (saved.fresh) killPointAfterCommit('invoice-issue');
-    return this.views.detailOrThrow(wholeOperation(operationId), saved.invoiceId, undefined, saved.known);
+    return this.views.detailOrThrow(wholeOperation(operationId), saved.invoiceId);
   }
 
   /** A void invoice keeps its number; its entries are approved and billable again, and its open pay links are expired. */

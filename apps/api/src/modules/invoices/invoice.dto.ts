@@ -1,6 +1,6 @@
-import type { Invoice, InvoiceLine, Operation, Party, Payment } from '@hitchbook/db';
+import type { Invoice, Operation, Party, Payment } from '@hitchbook/db';
 import type { InvoiceDto, InvoiceEntryDto, InvoiceSummaryDto, PartySnapshotDto, PaymentDto } from '@hitchbook/shared/schemas/invoices';
-import type { InvoiceListRow, InvoiceSummaryRow } from './invoices.repository.js';
+import type { InvoiceListRow, InvoiceSummaryRow, ShownLine } from './invoices.repository.js';
 import { numberLabel } from './invoice-numbers.js';
 
 export function snapshotOf(p: Pick<Party | Operation, 'name' | 'email' | 'phone' | 'address'>): PartySnapshotDto {
@@ -38,7 +38,7 @@ export function toSummaryDto(row: InvoiceListRow): InvoiceSummaryDto {
 
 export interface InvoiceParts {
   row: InvoiceSummaryRow;
-  lines: InvoiceLine[];
+  lines: ShownLine[];
   entries: InvoiceEntryDto[];
   creditOf: Invoice | null;
   creditNotes: Invoice[];

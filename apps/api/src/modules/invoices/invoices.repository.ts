@@ -18,10 +18,34 @@ import {
   type Payment,
 } from '@hitchbook/db';
 import type { PgInsertValue, PgUpdateSetSource } from 'drizzle-orm/pg-core';
-import type { InvoiceEntryDto, InvoiceKind, InvoiceState } from '@hitchbook/shared/schemas/invoices';
+import type { InvoiceEntryDto, InvoiceKind, InvoiceState, PartySnapshotDto } from '@hitchbook/shared/schemas/invoices';
 import { DB, type DbHandle } from '../../core/database.js';
 import { statementName } from '../../core/prepared.js';
 import type { InvoiceScope } from '../customer-portal/invoice-scope.js';
+
+const shownLineColumns = {
+  id: invoiceLines.id,
+  position: invoiceLines.position,
+  kind: invoiceLines.kind,
+  workEntryId: invoiceLines.workEntryId,
+  workDate: invoiceLines.workDate,
+  description: invoiceLines.description,
+  fieldName: invoiceLines.fieldName,
+  workTypeName: invoiceLines.workTypeName,
+  quantity: invoiceLines.quantity,
+  unit: invoiceLines.unit,
+  rate: invoiceLines.rate,
+  amount: invoiceLines.amount,
+};
+export type ShownLine = Pick<InvoiceLine, keyof typeof shownLineColumns>;
+
+export interface IssueFacts {
+  lines: number;
+  billed: number;
+  held: number;
+  issuer: PartySnapshotDto;
+  party: PartySnapshotDto;
+}
 
 export interface InvoiceSummaryRow {
   invoice: Invoice;
@@ -192,6 +216,15 @@ export class InvoicesRepository {
       .orderBy(asc(invoiceLines.position));
   }
 
+  /** The lines as the invoice shows them: without the pricing details kept for credit notes and audits. */
+  async shownLines(operationId: string, invoiceId: string, executor: Executor = this.dbh.db): Promise<ShownLine[]> {
+    return executor
+      .select(shownLineColumns)
+      .from(invoiceLines)
+      .where(and(eq(invoiceLines.operationId, operationId), eq(invoiceLines.invoiceId, invoiceId)))
+      .orderBy(asc(invoiceLines.position));
+  }
+
   async creditNotesOf(operationId: string, invoiceId: string, executor: Executor = this.dbh.db): Promise<Invoice[]> {
     return executor
       .select()
@@ -208,6 +241,8 @@ export class InvoicesRepository {
   /** What a customer may see of the billed work: where, when, what and how much, nothing about machines or costs. */
   async entries(operationId: string, ids: string[], executor: Executor = this.dbh.db): Promise<InvoiceEntryDto[]> {
     if (ids.length === 0) return [];
+    // By an array of ids, not a subquery on the lines: the planner then knows how many rows come, where for a
+    // new invoice its statistics on the lines would say a handful and pick loops that take ten times as long.
     return executor
       .select({
         id: workEntries.id,
@@ -274,6 +309,22 @@ export class InvoicesRepository {
 
   async deleteLines(operationId: string, invoiceId: string, kinds: InvoiceLine['kind'][], tx: Executor): Promise<void> {
     await tx.delete(invoiceLines).where(and(eq(invoiceLines.operationId, operationId), eq(invoiceLines.invoiceId, invoiceId), inArray(invoiceLines.kind, kinds)));
+  }
+
+  /**
+   * What issuing checks and freezes, in one round trip: how many lines the draft has and how many entries they
+   * bill, how many entries it holds, and the issuer's and the party's details as the invoice will keep them.
+   */
+  async issueFacts(operationId: string, invoiceId: string, partyId: string, tx: Executor): Promise<IssueFacts> {
+    const details = (t: SQL) => sql`json_build_object('name', ${t}.name, 'email', ${t}.email, 'phone', ${t}.phone, 'address', ${t}.address)`;
+    const result = await tx.execute<IssueFacts & Record<string, unknown>>(sql`
+      select
+        (select count(*)::int from invoice_lines where operation_id = ${operationId} and invoice_id = ${invoiceId}) as lines,
+        (select count(distinct work_entry_id)::int from invoice_lines where operation_id = ${operationId} and invoice_id = ${invoiceId}) as billed,
+        (select count(*)::int from invoice_entries where operation_id = ${operationId} and invoice_id = ${invoiceId}) as held,
+        (select ${details(sql.raw('o'))} from operations o where o.id = ${operationId}) as issuer,
+        (select ${details(sql.raw('p'))} from parties p where p.operation_id = ${operationId} and p.id = ${partyId}) as party`);
+    return result.rows[0]!;
   }
 
   async party(operationId: string, partyId: string, executor: Executor = this.dbh.db): Promise<Party | undefined> {
