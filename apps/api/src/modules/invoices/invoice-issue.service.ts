@@ -18,7 +18,7 @@ import { BillingEntriesRepository } from './billing-entries.repository.js';
 import { claimIdempotencyKey, saveIdempotentResult } from './idempotency.js';
 import { snapshotOf } from './invoice.dto.js';
 import { numberLabel, SERIES, takeNextNumber } from './invoice-numbers.js';
-import { InvoiceViews } from './invoice-views.service.js';
+import { InvoiceViews, type LinesAndEntries } from './invoice-views.service.js';
 import { InvoicesRepository } from './invoices.repository.js';
 
 interface Saved {
@@ -45,6 +45,7 @@ export class InvoiceIssueService {
   async issue(actor: Actor, id: string, body: { version?: number }, idempotencyKey?: string): Promise<InvoiceDto> {
     const operationId = actor.operationId;
     const remembered = idempotencyKey ? { operationId, key: idempotencyKey, route: 'POST /api/invoices/:id/issue', request: { id, version: body.version ?? null } } : null;
+    let shown: Promise<LinesAndEntries> | undefined;
     const saved = await this.dbh.db.transaction(async (tx): Promise<Saved> => {
       if (remembered) {
         const earlier = await claimIdempotencyKey<Saved>(tx, remembered);
@@ -56,6 +57,10 @@ export class InvoiceIssueService {
         throw conflict(invoice.status === 'void' ? 'This invoice is void.' : `This invoice was already issued as ${numberLabel(invoice.series, invoice.number)}.`);
       }
       if (body.version !== undefined && body.version !== invoice.version) throw conflict('This draft was changed since you loaded it; reload it before issuing.');
+      // Read for the answer on another connection while this transaction goes on: under the invoice's lock its
+      // lines cannot change, its entries are held and cannot either, and issuing changes neither.
+      shown = this.views.linesAndEntries(operationId, id);
+      shown.catch(() => undefined);
 
       const facts = await this.repo.issueFacts(operationId, id, invoice.partyId, tx);
       if (facts.lines === 0) throw conflict('This draft has no lines; add work or a line before issuing it.');
@@ -88,7 +93,7 @@ export class InvoiceIssueService {
       return { invoiceId: id, fresh: true };
     });
     if (saved.fresh) killPointAfterCommit('invoice-issue');
-    return this.views.detailOrThrow(wholeOperation(operationId), saved.invoiceId);
+    return this.views.detailOrThrow(wholeOperation(operationId), saved.invoiceId, undefined, saved.fresh ? shown : undefined);
   }
 
   /** A void invoice keeps its number; its entries are approved and billable again, and its open pay links are expired. */

@@ -1,11 +1,13 @@
 import { Inject, Injectable } from '@nestjs/common';
 import type { Executor } from '@hitchbook/db';
-import type { InvoiceDto } from '@hitchbook/shared/schemas/invoices';
+import type { InvoiceDto, InvoiceEntryDto } from '@hitchbook/shared/schemas/invoices';
 import { notFound } from '../../common/errors/app-error.js';
 import { APP_CONFIG, type AppConfig } from '../../core/config.js';
 import type { InvoiceScope } from '../customer-portal/invoice-scope.js';
 import { snapshotOf, toInvoiceDto } from './invoice.dto.js';
-import { InvoicesRepository } from './invoices.repository.js';
+import { InvoicesRepository, type ShownLine } from './invoices.repository.js';
+
+export type LinesAndEntries = readonly [ShownLine[], InvoiceEntryDto[]];
 
 /** Builds the full invoice as the caller may see it; anything outside the scope does not exist (404). */
 @Injectable()
@@ -15,9 +17,13 @@ export class InvoiceViews {
     @Inject(InvoicesRepository) private readonly repo: InvoicesRepository,
   ) {}
 
-  async detailOrThrow(scope: InvoiceScope, id: string, executor?: Executor): Promise<InvoiceDto> {
+  /**
+   * `shown`: the lines and entries already being read by `linesAndEntries`, by a caller that holds the invoice's
+   * lock while they are read, so they are the ones this answer must show.
+   */
+  async detailOrThrow(scope: InvoiceScope, id: string, executor?: Executor, shown?: Promise<LinesAndEntries>): Promise<InvoiceDto> {
     const operationId = scope.operationId;
-    const [row, [lines, entries], creditNotes] = await this.parts(scope, id, executor);
+    const [row, [lines, entries], creditNotes] = await this.parts(scope, id, executor, shown);
     if (!row) throw notFound('No such invoice.');
     const i = row.invoice;
     const creditOf = i.creditOfInvoiceId ? await this.repo.find(operationId, i.creditOfInvoiceId, executor) : undefined;
@@ -27,20 +33,23 @@ export class InvoiceViews {
     return toInvoiceDto({ row, lines, entries, creditOf: creditOf ?? null, creditNotes, issuer, party, appUrl: this.config.appUrl });
   }
 
+  /** The invoice's lines as it shows them, and the entries they bill, read on the pool. */
+  async linesAndEntries(operationId: string, id: string, executor?: Executor): Promise<LinesAndEntries> {
+    const lines = await this.repo.shownLines(operationId, id, executor);
+    const entryIds = [...new Set(lines.map((l) => l.workEntryId).filter((e): e is string => e !== null))];
+    return [lines, await this.repo.entries(operationId, entryIds, executor)];
+  }
+
   /**
    * Outside a transaction the summary, the lines with their entries, and the credit notes are read at once on
    * the pool's connections; inside one they share its connection and go one after another. What is read
    * alongside the scope check is dropped unseen when the summary says the caller may not see the invoice. A
    * credit note has no credit notes: that read answers none.
    */
-  private async parts(scope: InvoiceScope, id: string, executor: Executor | undefined) {
+  private async parts(scope: InvoiceScope, id: string, executor: Executor | undefined, shown: Promise<LinesAndEntries> | undefined) {
     const { operationId } = scope;
     const summary = () => this.repo.summary(scope, id, executor);
-    const linesAndEntries = async () => {
-      const lines = await this.repo.shownLines(operationId, id, executor);
-      const entryIds = [...new Set(lines.map((l) => l.workEntryId).filter((e): e is string => e !== null))];
-      return [lines, await this.repo.entries(operationId, entryIds, executor)] as const;
-    };
+    const linesAndEntries = () => shown ?? this.linesAndEntries(operationId, id, executor);
     const creditNotes = () => this.repo.creditNotesOf(operationId, id, executor);
     if (executor) return [await summary(), await linesAndEntries(), await creditNotes()] as const;
     return Promise.all([summary(), linesAndEntries(), creditNotes()]);
