@@ -1,9 +1,8 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, eq, gte, inArray, lte, notExists, sql } from 'drizzle-orm';
-import { fields, invoiceEntries, invoices, workEntries, workTypes, type Executor } from '@hitchbook/db';
+import { and, asc, eq, gte, lte, notExists, sql } from 'drizzle-orm';
+import { fields, invoiceEntries, workEntries, workTypes, type Executor } from '@hitchbook/db';
 import { DB, type DbHandle } from '../../core/database.js';
 import type { EntryToBill } from './draft-pricing.js';
-import { numberLabel } from './invoice-numbers.js';
 
 /**
  * The work entries side of billing: which entries can be billed, and holding them for an invoice. A draft
@@ -104,16 +103,5 @@ export class BillingEntriesRepository {
         .where(and(eq(workEntries.operationId, operationId), sql`${workEntries.id} = any(${sql.param(ids)}::uuid[])`, eq(workEntries.state, 'invoiced')));
     }
     return ids;
-  }
-
-  /** Which of these entries another invoice already bills, with that invoice's number. */
-  async billedElsewhere(operationId: string, entryIds: string[]): Promise<Array<{ entryId: string; numberLabel: string | null }>> {
-    if (entryIds.length === 0) return [];
-    const rows = await this.dbh.db
-      .select({ entryId: invoiceEntries.workEntryId, series: invoices.series, number: invoices.number })
-      .from(invoiceEntries)
-      .innerJoin(invoices, and(eq(invoices.operationId, invoiceEntries.operationId), eq(invoices.id, invoiceEntries.invoiceId)))
-      .where(and(eq(invoiceEntries.operationId, operationId), inArray(invoiceEntries.workEntryId, entryIds)));
-    return rows.map((r) => ({ entryId: r.entryId, numberLabel: numberLabel(r.series, r.number) }));
   }
 }

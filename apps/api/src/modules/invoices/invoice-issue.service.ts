@@ -62,15 +62,17 @@ export class InvoiceIssueService {
       shown = this.views.linesAndEntries(operationId, id);
       shown.catch(() => undefined);
 
-      const facts = await this.repo.issueFacts(operationId, id, invoice.partyId, tx);
-      if (facts.lines === 0) throw conflict('This draft has no lines; add work or a line before issuing it.');
+      const counts = await this.repo.draftCounts(operationId, id, tx);
+      if (counts.lines === 0) throw conflict('This draft has no lines; add work or a line before issuing it.');
       // The draft holds its entries since it was made, and they cannot change while it does: nothing to
       // write per entry here, only a check that none slipped out of its hold (it holds no entry it does not bill).
-      if (facts.held !== facts.billed) {
+      if (counts.held !== counts.billed) {
         const unheld = await this.entries.unheldLines(operationId, id, tx);
         const named = unheld.map((l) => `${l.workDate ?? ''} ${l.fieldName ?? ''}`.trim()).join('; ');
         throw conflict(`This draft no longer holds some of its entries: ${named}. Delete this draft and make a new one.`);
       }
+      const party = (await this.repo.party(operationId, invoice.partyId, tx))!;
+      const issuer = await this.repo.operation(operationId, tx);
       const number = await takeNextNumber(tx, operationId, invoice.series);
       await this.repo.update(
         operationId,
@@ -80,15 +82,15 @@ export class InvoiceIssueService {
           number,
           issueDate: sql`current_date`,
           dueDate: sql`current_date + ${invoice.termsDays}::int`,
-          issuerSnapshot: facts.issuer,
-          partySnapshot: facts.party,
+          issuerSnapshot: snapshotOf(issuer),
+          partySnapshot: snapshotOf(party),
           issuedAt: new Date(),
           issuedBy: actor.userId,
           version: invoice.version + 1,
         },
         tx,
       );
-      await this.audit.record(this.audit.byActor(actor, 'invoice.issued', 'invoice', id, { after: { number: numberLabel(invoice.series, number), total: invoice.total, entries: facts.billed } }), tx);
+      await this.audit.record(this.audit.byActor(actor, 'invoice.issued', 'invoice', id, { after: { number: numberLabel(invoice.series, number), total: invoice.total, entries: counts.billed } }), tx);
       if (remembered) await saveIdempotentResult(tx, remembered, { invoiceId: id });
       return { invoiceId: id, fresh: true };
     });

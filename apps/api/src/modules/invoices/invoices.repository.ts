@@ -18,7 +18,7 @@ import {
   type Payment,
 } from '@hitchbook/db';
 import type { PgInsertValue, PgUpdateSetSource } from 'drizzle-orm/pg-core';
-import type { InvoiceEntryDto, InvoiceKind, InvoiceState, PartySnapshotDto } from '@hitchbook/shared/schemas/invoices';
+import type { InvoiceEntryDto, InvoiceKind, InvoiceState } from '@hitchbook/shared/schemas/invoices';
 import { DB, type DbHandle } from '../../core/database.js';
 import { statementName } from '../../core/prepared.js';
 import type { InvoiceScope } from '../customer-portal/invoice-scope.js';
@@ -39,12 +39,10 @@ const shownLineColumns = {
 };
 export type ShownLine = Pick<InvoiceLine, keyof typeof shownLineColumns>;
 
-export interface IssueFacts {
+export interface DraftCounts {
   lines: number;
   billed: number;
   held: number;
-  issuer: PartySnapshotDto;
-  party: PartySnapshotDto;
 }
 
 export interface InvoiceSummaryRow {
@@ -311,19 +309,13 @@ export class InvoicesRepository {
     await tx.delete(invoiceLines).where(and(eq(invoiceLines.operationId, operationId), eq(invoiceLines.invoiceId, invoiceId), inArray(invoiceLines.kind, kinds)));
   }
 
-  /**
-   * What issuing checks and freezes, in one round trip: how many lines the draft has and how many entries they
-   * bill, how many entries it holds, and the issuer's and the party's details as the invoice will keep them.
-   */
-  async issueFacts(operationId: string, invoiceId: string, partyId: string, tx: Executor): Promise<IssueFacts> {
-    const details = (t: SQL) => sql`json_build_object('name', ${t}.name, 'email', ${t}.email, 'phone', ${t}.phone, 'address', ${t}.address)`;
-    const result = await tx.execute<IssueFacts & Record<string, unknown>>(sql`
+  /** What issuing checks, in one round trip: the draft's lines, the entries they bill, and the entries it holds. */
+  async draftCounts(operationId: string, invoiceId: string, tx: Executor): Promise<DraftCounts> {
+    const result = await tx.execute<DraftCounts & Record<string, unknown>>(sql`
       select
         (select count(*)::int from invoice_lines where operation_id = ${operationId} and invoice_id = ${invoiceId}) as lines,
         (select count(distinct work_entry_id)::int from invoice_lines where operation_id = ${operationId} and invoice_id = ${invoiceId}) as billed,
-        (select count(*)::int from invoice_entries where operation_id = ${operationId} and invoice_id = ${invoiceId}) as held,
-        (select ${details(sql.raw('o'))} from operations o where o.id = ${operationId}) as issuer,
-        (select ${details(sql.raw('p'))} from parties p where p.operation_id = ${operationId} and p.id = ${partyId}) as party`);
+        (select count(*)::int from invoice_entries where operation_id = ${operationId} and invoice_id = ${invoiceId}) as held`);
     return result.rows[0]!;
   }
 
