@@ -110,7 +110,8 @@ export const invoiceLines = pgTable(
 
 /**
  * The lock that makes billing an entry twice impossible: an entry appears here at most once, for the
- * issued invoice that bills it. Voiding the invoice deletes its rows, so the entry can be billed again.
+ * draft or invoice that bills it. Deleting the draft or voiding the invoice deletes its rows, so the entry can be
+ * billed again.
  */
 export const invoiceEntries = pgTable(
   'invoice_entries',

@@ -214,13 +214,22 @@ export class InvoicesRepository {
       .orderBy(asc(invoiceLines.position));
   }
 
-  /** The lines as the invoice shows them: without the pricing details kept for credit notes and audits. */
+  /**
+   * The lines as the invoice shows them: without the pricing details kept for credit notes and audits. Read as the
+   * driver's rows under the names the answer uses, not through the ORM's column mapping: an invoice of 500 entries
+   * is 6,000 cells, and mapping them one by one took more of its page's time than the database did.
+   */
   async shownLines(operationId: string, invoiceId: string, executor: Executor = this.dbh.db): Promise<ShownLine[]> {
-    return executor
-      .select(shownLineColumns)
-      .from(invoiceLines)
-      .where(and(eq(invoiceLines.operationId, operationId), eq(invoiceLines.invoiceId, invoiceId)))
-      .orderBy(asc(invoiceLines.position));
+    const l = invoiceLines;
+    const result = await executor.execute<ShownLine & Record<string, unknown>>(sql`
+      select ${l.id} as "id", ${l.position} as "position", ${l.kind} as "kind", ${l.workEntryId} as "workEntryId",
+        ${l.workDate} as "workDate", ${l.description} as "description", ${l.fieldName} as "fieldName",
+        ${l.workTypeName} as "workTypeName", ${l.quantity} as "quantity", ${l.unit} as "unit", ${l.rate} as "rate",
+        ${l.amount} as "amount"
+      from ${l}
+      where ${l.operationId} = ${operationId} and ${l.invoiceId} = ${invoiceId}
+      order by ${l.position}`);
+    return result.rows;
   }
 
   async creditNotesOf(operationId: string, invoiceId: string, executor: Executor = this.dbh.db): Promise<Invoice[]> {
@@ -241,23 +250,17 @@ export class InvoicesRepository {
     if (ids.length === 0) return [];
     // By an array of ids, not a subquery on the lines: the planner then knows how many rows come, where for a
     // new invoice its statistics on the lines would say a handful and pick loops that take ten times as long.
-    return executor
-      .select({
-        id: workEntries.id,
-        workDate: workEntries.workDate,
-        fieldName: fields.name,
-        workTypeName: workTypes.name,
-        hours: workEntries.hours,
-        acres: workEntries.acres,
-        miles: workEntries.miles,
-        loads: workEntries.loads,
-        eachCount: workEntries.eachCount,
-      })
-      .from(workEntries)
-      .innerJoin(fields, and(eq(fields.operationId, workEntries.operationId), eq(fields.id, workEntries.fieldId)))
-      .innerJoin(workTypes, and(eq(workTypes.operationId, workEntries.operationId), eq(workTypes.id, workEntries.workTypeId)))
-      .where(and(eq(workEntries.operationId, operationId), sql`${workEntries.id} = any(${sql.param(ids)}::uuid[])`))
-      .orderBy(asc(workEntries.workDate), asc(fields.name), asc(workEntries.id));
+    // The driver's rows, as for the lines (shownLines).
+    const w = workEntries;
+    const result = await executor.execute<InvoiceEntryDto & Record<string, unknown>>(sql`
+      select ${w.id} as "id", ${w.workDate} as "workDate", ${fields.name} as "fieldName", ${workTypes.name} as "workTypeName",
+        ${w.hours} as "hours", ${w.acres} as "acres", ${w.miles} as "miles", ${w.loads} as "loads", ${w.eachCount} as "eachCount"
+      from ${w}
+      join ${fields} on ${fields.operationId} = ${w.operationId} and ${fields.id} = ${w.fieldId}
+      join ${workTypes} on ${workTypes.operationId} = ${w.operationId} and ${workTypes.id} = ${w.workTypeId}
+      where ${w.operationId} = ${operationId} and ${w.id} = any(${sql.param(ids)}::uuid[])
+      order by ${w.workDate}, ${fields.name}, ${w.id}`);
+    return result.rows;
   }
 
   async insert(values: PgInsertValue<typeof invoices>, tx: Executor): Promise<Invoice> {
