@@ -67,6 +67,17 @@ async function nextPass(page: Page) {
   await page.getByTestId('entry-field').waitFor();
 }
 
+/**
+ * Cuts the signal and waits until the page knows it. On a busy machine the page still saw itself online for a
+ * moment after the switch, and a pass saved in that moment went out: the server stored it, its answer was lost,
+ * and the phone kept it to resend under the same clientId. The product handles that; these scenarios count what
+ * reached the server while the phone had no signal, so they start once it has none.
+ */
+async function goOffline(context: BrowserContext, page: Page) {
+  await context.setOffline(true);
+  await page.waitForFunction(() => !navigator.onLine);
+}
+
 const queuedCount = (page: Page) => page.getByTestId('queued-entry').count();
 
 async function inContext(context: BrowserContext, page: Page, failureName: string, scenario: () => Promise<void>) {
@@ -86,7 +97,7 @@ describe('logging work without signal', () => {
     const notes = [1, 2, 3].map((n) => `No-signal pass ${n}, ${run}`);
     await inContext(context, page, 'offline-three-entries', async () => {
       await signInAndOpenLog(page, DEMO_SIGN_INS.operator);
-      await context.setOffline(true);
+      await goOffline(context, page);
 
       for (const [index, note] of notes.entries()) {
         await logByHours(page, `${index + 1}.5`, note);
@@ -155,7 +166,7 @@ describe('logging work without signal', () => {
       await expect.poll(() => meterStart.inputValue()).toMatch(/^\d+(\.\d+)?$/);
       const start = Number(await meterStart.inputValue());
 
-      await context.setOffline(true);
+      await goOffline(context, page);
       await page.getByLabel('Meter end').fill((start + 2).toFixed(1));
       await page.getByLabel('Notes').fill(note);
       await page.getByRole('button', { name: 'Submit for approval' }).click();
@@ -205,7 +216,7 @@ describe('logging work without signal', () => {
     const note = `Expired sign-in pass, ${run}`;
     await inContext(context, page, 'offline-expired-sign-in', async () => {
       await signInAndOpenLog(page, DEMO_SIGN_INS.operator);
-      await context.setOffline(true);
+      await goOffline(context, page);
       await logByHours(page, '1.25', note);
       await page.getByTestId('entry-queued').waitFor();
 
