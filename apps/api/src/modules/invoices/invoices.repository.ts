@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, count, desc, eq, gte, inArray, isNotNull, lte, sql, type Placeholder, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, gte, inArray, isNotNull, lte, sql, type AnyColumn, type Placeholder, type SQL } from 'drizzle-orm';
 import {
   fields,
   invoiceLines,
@@ -38,6 +38,31 @@ const shownLineColumns = {
   amount: invoiceLines.amount,
 };
 export type ShownLine = Pick<InvoiceLine, keyof typeof shownLineColumns>;
+
+/** What a customer may see of a billed entry: where, when, what and how much, nothing about machines or costs. */
+const entryColumns = {
+  id: workEntries.id,
+  workDate: workEntries.workDate,
+  fieldName: fields.name,
+  workTypeName: workTypes.name,
+  hours: workEntries.hours,
+  acres: workEntries.acres,
+  miles: workEntries.miles,
+  loads: workEntries.loads,
+  eachCount: workEntries.eachCount,
+} satisfies Record<keyof InvoiceEntryDto, unknown>;
+
+/**
+ * A select list naming each column as the answer does, for reads whose driver rows are the answer as they come:
+ * an invoice of 500 entries is 6,000 cells, and the ORM's mapping of them one by one took more of its page's time
+ * than the database did. Numeric and date columns come as text, as through the ORM.
+ */
+function aliased(columns: Record<string, AnyColumn>): SQL {
+  return sql.join(
+    Object.entries(columns).map(([name, column]) => sql`${column} as ${sql.identifier(name)}`),
+    sql`, `,
+  );
+}
 
 export interface DraftCounts {
   lines: number;
@@ -214,18 +239,11 @@ export class InvoicesRepository {
       .orderBy(asc(invoiceLines.position));
   }
 
-  /**
-   * The lines as the invoice shows them: without the pricing details kept for credit notes and audits. Read as the
-   * driver's rows under the names the answer uses, not through the ORM's column mapping: an invoice of 500 entries
-   * is 6,000 cells, and mapping them one by one took more of its page's time than the database did.
-   */
+  /** The lines as the invoice shows them: without the pricing details kept for credit notes and audits. */
   async shownLines(operationId: string, invoiceId: string, executor: Executor = this.dbh.db): Promise<ShownLine[]> {
     const l = invoiceLines;
     const result = await executor.execute<ShownLine & Record<string, unknown>>(sql`
-      select ${l.id} as "id", ${l.position} as "position", ${l.kind} as "kind", ${l.workEntryId} as "workEntryId",
-        ${l.workDate} as "workDate", ${l.description} as "description", ${l.fieldName} as "fieldName",
-        ${l.workTypeName} as "workTypeName", ${l.quantity} as "quantity", ${l.unit} as "unit", ${l.rate} as "rate",
-        ${l.amount} as "amount"
+      select ${aliased(shownLineColumns)}
       from ${l}
       where ${l.operationId} = ${operationId} and ${l.invoiceId} = ${invoiceId}
       order by ${l.position}`);
@@ -245,16 +263,14 @@ export class InvoicesRepository {
     return row;
   }
 
-  /** What a customer may see of the billed work: where, when, what and how much, nothing about machines or costs. */
+  /** The billed entries as a customer may see them (entryColumns). */
   async entries(operationId: string, ids: string[], executor: Executor = this.dbh.db): Promise<InvoiceEntryDto[]> {
     if (ids.length === 0) return [];
     // By an array of ids, not a subquery on the lines: the planner then knows how many rows come, where for a
     // new invoice its statistics on the lines would say a handful and pick loops that take ten times as long.
-    // The driver's rows, as for the lines (shownLines).
     const w = workEntries;
     const result = await executor.execute<InvoiceEntryDto & Record<string, unknown>>(sql`
-      select ${w.id} as "id", ${w.workDate} as "workDate", ${fields.name} as "fieldName", ${workTypes.name} as "workTypeName",
-        ${w.hours} as "hours", ${w.acres} as "acres", ${w.miles} as "miles", ${w.loads} as "loads", ${w.eachCount} as "eachCount"
+      select ${aliased(entryColumns)}
       from ${w}
       join ${fields} on ${fields.operationId} = ${w.operationId} and ${fields.id} = ${w.fieldId}
       join ${workTypes} on ${workTypes.operationId} = ${w.operationId} and ${workTypes.id} = ${w.workTypeId}
