@@ -21,11 +21,12 @@ const BARE_ROOT = inRepo('packages/devstack/bench-bare');
 
 /** Each page's route chain, outermost first, as source paths in apps/web (the manifest's keys). */
 export const PAGES = {
-  signIn: ['src/app/layout/PublicLayout.tsx', 'src/features/auth/routes/SignInPage.tsx'],
-  cabForm: ['src/app/layout/AppLayout.tsx', 'src/features/work/routes/LogWorkPage.tsx'],
+  signIn: ['src/app/signin/SignInApp.tsx'],
+  cabForm: ['src/app/cab/CabApp.tsx'],
 };
 
-const ROUTE_MODULE = /^src\/(features\/[^/]+\/routes|app\/layout)\//;
+// The entry picks one app (the office app, or the lean sign-in or cab page) and the office app its routes.
+const ROUTE_MODULE = /^src\/(features\/[^/]+\/routes\/|app\/layout\/|app\/App\.tsx$|app\/(cab|signin)\/\w+App\.tsx$)/;
 
 /** The entry's lazy imports that are not routes: started as soon as the app mounts, whatever the page. */
 function everyPageImports(entry) {

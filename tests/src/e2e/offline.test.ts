@@ -234,8 +234,8 @@ describe('logging work without signal', () => {
       expect(await page.getByTestId('queue-status').count()).toBe(0);
       expect(await page.getByText(note).count()).toBe(0);
       await screenshot(page, 'offline-other-person-phone');
-      await page.getByTestId('user-menu').click();
-      await page.getByRole('menuitem', { name: 'Sign out' }).click();
+      // The cab page signs out from its own foot, without the office app's user menu.
+      await page.getByTestId('cab-sign-out').click();
       await page.getByLabel('E-mail').waitFor();
       expect(await storedEntriesNoted([note])).toEqual([]);
 

@@ -1,14 +1,8 @@
-import { Component, type ErrorInfo, type ReactNode } from 'react';
-import { Alert, Button, Container, Stack, Text, Title } from '@mantine/core';
-import { IconAlertTriangle, IconDatabaseOff } from '@tabler/icons-react';
+import type { ReactNode } from 'react';
 import { Navigate, useLocation } from 'react-router-dom';
 import { isApiError } from '../lib/api';
 import { paths } from '../lib/paths';
-
-/** A route chunk fails to load after a new version was deployed while the tab stayed open. */
-function isStaleChunk(error: unknown): boolean {
-  return error instanceof TypeError && /dynamically imported module|Importing a module script failed/i.test(error.message);
-}
+import { ErrorBoundary, ErrorPanel } from './ErrorBoundary';
 
 /**
  * The pages a refused or missing record shows. Only signed-in pages read records, so the signed-in frame hands
@@ -28,73 +22,15 @@ function RouteError({ error, refusals }: { error: unknown; refusals: Refusals | 
     return <Navigate to={paths.signIn({ next: location.pathname + location.search })} replace />;
   }
 
-  const databaseDown = isApiError(error) && error.status === 503;
-  const refused = isApiError(error) && (error.status === 403 || error.status === 404);
-  const staleChunk = isStaleChunk(error);
-  return (
-    <Container size="sm" py="xl">
-      <Stack gap="md">
-        <Title order={1} size="h2">
-          {databaseDown ? "The server can't reach its database" : staleChunk ? 'Hitchbook was updated' : 'Something went wrong'}
-        </Title>
-        <Alert color={databaseDown ? 'clay' : 'red'} icon={databaseDown ? <IconDatabaseOff /> : <IconAlertTriangle />}>
-          <Text>
-            {databaseDown
-              ? 'Nothing is lost. Try again in a few minutes.'
-              : staleChunk
-                ? 'Reload the page to get the new version.'
-                : refused && isApiError(error)
-                  ? error.message
-                  : 'This screen hit an unexpected problem. Reloading usually helps; if it keeps happening, tell the account owner what you were doing.'}
-          </Text>
-        </Alert>
-        <Button onClick={() => window.location.reload()} w="fit-content">
-          Reload
-        </Button>
-      </Stack>
-    </Container>
-  );
-}
-
-interface BoundaryProps {
-  children: ReactNode;
-  refusals?: Refusals;
-}
-
-interface BoundaryState {
-  error: unknown;
-  /** The page the error happened on: following a link elsewhere gives the next page a fresh start. */
-  pathname: string | null;
-}
-
-class Boundary extends Component<BoundaryProps & { pathname: string }, BoundaryState> {
-  override state: BoundaryState = { error: null, pathname: null };
-
-  static getDerivedStateFromError(error: unknown): Partial<BoundaryState> {
-    return { error: error ?? new Error('Unknown error') };
-  }
-
-  static getDerivedStateFromProps(props: { pathname: string }, state: BoundaryState): Partial<BoundaryState> | null {
-    if (state.error && state.pathname !== null && state.pathname !== props.pathname) return { error: null, pathname: null };
-    if (state.error && state.pathname === null) return { pathname: props.pathname };
-    return null;
-  }
-
-  override componentDidCatch(error: unknown, info: ErrorInfo) {
-    console.error(error, info.componentStack);
-  }
-
-  override render() {
-    return this.state.error ? <RouteError error={this.state.error} refusals={this.props.refusals} /> : this.props.children;
-  }
+  return <ErrorPanel error={error} />;
 }
 
 /** What a page shows when it fails to load or render: a page of its own, inside the frame around it. */
-export function RouteErrorBoundary({ children, refusals }: BoundaryProps) {
+export function RouteErrorBoundary({ children, refusals }: { children: ReactNode; refusals?: Refusals }) {
   const { pathname } = useLocation();
   return (
-    <Boundary pathname={pathname} refusals={refusals}>
+    <ErrorBoundary resetKey={pathname} renderError={(error) => <RouteError error={error} refusals={refusals} />}>
       {children}
-    </Boundary>
+    </ErrorBoundary>
   );
 }

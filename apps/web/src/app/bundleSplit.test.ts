@@ -5,21 +5,24 @@ import { fileURLToPath } from 'node:url';
 import { build, type Manifest } from 'vite';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-// The structure behind the bundle budget (npm run bench measures the bytes): the sign-in page and the cab
-// form load no table, chart, date-picker or upload code, and every page is a chunk of its own. Beyond that the
-// sign-in page loads none of the signed-in app (query cache, toasts, form recipe, zod), and the cab form
-// fetches zod, the phone queue, the dropdown positioning and the toasts only once it is drawn. It builds the
-// app itself, so it checks the sources as they are rather than whatever dist was built last.
+// The structure behind the bundle budget (npm run bench measures the bytes): opened straight, the sign-in page
+// and the cab form are lean apps of their own, without the office app's router, and every office page is a chunk
+// of its own. The sign-in page loads none of the signed-in app (query cache, toasts, form recipe, zod); the cab
+// form loads no query cache or form library and fetches zod and the phone queue only once it is drawn. It builds
+// the app itself, so it checks the sources as they are rather than whatever dist was built last.
 
 const webRoot = fileURLToPath(new URL('../..', import.meta.url));
 const HEAVY_PACKAGES = /node_modules\/(mantine-react-table|@tanstack\/react-table|@mantine\/charts|recharts|d3-[a-z-]+|@mantine\/dates|dayjs|@mantine\/dropzone|react-dropzone)\//;
-const ROUTE_MODULE = /^src\/(features\/[^/]+\/routes|app\/layout)\//;
+// The entry picks one app (the office app, or the lean sign-in or cab page) and the office app its routes.
+const ROUTE_MODULE = /^src\/(features\/[^/]+\/routes\/|app\/layout\/|app\/App\.tsx$|app\/(cab|signin)\/\w+App\.tsx$)/;
 const SIGNED_IN_ONLY = /node_modules\/(zod|@tanstack\/query-core|@tanstack\/react-query|@mantine\/notifications|@mantine\/form|@floating-ui\/[a-z-]+)\//;
-const AFTER_CAB_FORM_PAINT = /node_modules\/(zod|@floating-ui\/[a-z-]+|@mantine\/notifications|idb)\//;
+const NOT_ON_CAB_FORM = /node_modules\/(zod|idb|@tanstack\/query-core|@tanstack\/react-query|@mantine\/form|@mantine\/notifications|@floating-ui\/[a-z-]+|react-router)\//;
 const DEVELOPMENT_BUILDS = /node_modules\/(react-router\/dist\/development)\//;
 
-const SIGN_IN = ['src/features/auth/routes/SignInPage.tsx'];
-const CAB_FORM = ['src/app/layout/AppLayout.tsx', 'src/features/work/routes/LogWorkPage.tsx'];
+const SIGN_IN = ['src/app/signin/SignInApp.tsx'];
+const CAB_FORM = ['src/app/cab/CabApp.tsx'];
+const OFFICE_FRAME = ['src/app/App.tsx', 'src/app/layout/AppLayout.tsx'];
+const officePage = (page: string) => [...OFFICE_FRAME, page];
 
 let outDir: string;
 let manifest: Manifest;
@@ -92,11 +95,13 @@ function routeModules(): string[] {
 }
 
 describe('web bundle split', () => {
-  it('the sign-in page loads no table, chart, date or upload code and not the signed-in frame', () => {
+  it('the sign-in page loads no table, chart, date or upload code, not the signed-in frame and no router', () => {
     const chunks = pageChunks(SIGN_IN);
     expect(heavySourcesIn(chunks)).toEqual([]);
     expect(manifest['src/app/layout/AppLayout.tsx']?.isDynamicEntry).toBe(true);
     expect(chunks.has('src/app/layout/AppLayout.tsx')).toBe(false);
+    expect(chunks.has('src/app/App.tsx')).toBe(false);
+    expect(heavySourcesIn(chunks, /node_modules\/(react-router)\//)).toEqual([]);
   });
 
   it('the sign-in page loads no service-worker library, password-input family or record-refusal pages', () => {
@@ -104,12 +109,14 @@ describe('web bundle split', () => {
     const notOnSignIn =
       /(node_modules\/workbox-window|@mantine\/core\/esm\/components\/(?:PasswordInput|ActionIcon)|src\/components\/Not(?:Found|Allowed))[/.]/;
     expect(heavySourcesIn(chunks, notOnSignIn)).toEqual([]);
-    // React Router is one module, so its unused forms and link prefetching show only in the code itself.
-    const code = [...chunks].map((key) => readFileSync(join(outDir, manifest[key]!.file), 'utf8')).join('\n');
+    // React Router is one module, so its unused forms and link prefetching show only in the office app's code.
+    const office = pageChunks(['src/app/App.tsx']);
+    const code = [...office].map((key) => readFileSync(join(outDir, manifest[key]!.file), 'utf8')).join('\n');
+    expect(heavySourcesIn(office, /node_modules\/(react-router)\//)).not.toEqual([]);
     expect(code).not.toContain('application/x-www-form-urlencoded');
     expect(code).not.toContain('IntersectionObserver');
     // The signed-in frame still has the refusal pages, where a page can meet a 403 or a 404.
-    expect(heavySourcesIn(pageChunks(CAB_FORM), notOnSignIn).join(' ')).toContain('src/components/NotFound');
+    expect(heavySourcesIn(pageChunks(OFFICE_FRAME), notOnSignIn).join(' ')).toContain('src/components/NotFound');
   });
 
   it('the cab work-entry form loads no table, chart, date or upload code', () => {
@@ -120,26 +127,22 @@ describe('web bundle split', () => {
     expect(heavySourcesIn(pageChunks(SIGN_IN), SIGNED_IN_ONLY)).toEqual([]);
   });
 
-  it('the cab form loads zod, the phone queue, the dropdown positioning and the toasts only after it is drawn', () => {
+  it('the cab form loads no router, query cache, form library, toasts or dropdowns, and zod and the queue only after it is drawn', () => {
     const cabForm = pageChunks(CAB_FORM);
-    expect(heavySourcesIn(cabForm, AFTER_CAB_FORM_PAINT)).toEqual([]);
-    // They still come, fetched by the frame and the form once drawn (not by a page of their own): the entry
-    // schema for the checks before sending, the queue in IndexedDB, the user menu's dropdown and the toast host.
-    const fetchedLater = [...cabForm]
-      .flatMap((key) => manifest[key]!.dynamicImports ?? [])
-      .filter((key) => !/^src\/features\/[^/]+\/routes\//.test(key));
+    expect(heavySourcesIn(cabForm, NOT_ON_CAB_FORM)).toEqual([]);
+    // Zod and the queue still come, fetched by the form once drawn: the entry schema for the checks before
+    // sending, and the queue in IndexedDB.
+    const fetchedLater = [...cabForm].flatMap((key) => manifest[key]!.dynamicImports ?? []);
     const later = new Set(fetchedLater.flatMap((key) => [...pageChunks([key])]).filter((key) => !cabForm.has(key)));
-    const seen = heavySourcesIn(later, AFTER_CAB_FORM_PAINT).join(' ');
+    const seen = heavySourcesIn(later, NOT_ON_CAB_FORM).join(' ');
     expect(seen).toContain('zod');
-    expect(seen).toContain('@floating-ui');
-    expect(seen).toContain('@mantine/notifications');
     expect(seen).toContain('idb');
   });
 
   it('the cab form works out its hours without decimal.js', () => {
     expect(heavySourcesIn(pageChunks(CAB_FORM), /node_modules\/(decimal\.js)\//)).toEqual([]);
     // The entries table, on the same data, does load it: the check reads the source maps rather than nothing.
-    expect(heavySourcesIn(pageChunks(['src/app/layout/AppLayout.tsx', 'src/features/work/routes/WorkEntriesPage.tsx']), /node_modules\/(decimal\.js)\//)).not.toEqual([]);
+    expect(heavySourcesIn(pageChunks(officePage('src/features/work/routes/WorkEntriesPage.tsx')), /node_modules\/(decimal\.js)\//)).not.toEqual([]);
   });
 
   it("ships React Router's production build", () => {
@@ -151,7 +154,7 @@ describe('web bundle split', () => {
   it('the check would see the heavy packages where they are used', () => {
     // The entries list is a table page, own-or-hire draws a chart and the CSV import takes a dropped file:
     // if these came back clean, the source-map reading above would be blind rather than the two pages clean.
-    const seen = (page: string) => heavySourcesIn(pageChunks(['src/app/layout/AppLayout.tsx', page])).join(' ');
+    const seen = (page: string) => heavySourcesIn(pageChunks(officePage(page))).join(' ');
     expect(seen('src/features/work/routes/WorkEntriesPage.tsx')).toContain('mantine-react-table');
     expect(seen('src/features/estimates/routes/OwnOrHirePage.tsx')).toMatch(/recharts|@mantine\/charts/);
     expect(seen('src/features/work/routes/ImportPage.tsx')).toContain('@mantine/dropzone');

@@ -1,20 +1,4 @@
 import type { Role } from '@hitchbook/shared/roles';
-import {
-  IconCalculator,
-  IconChartBar,
-  IconClipboardList,
-  IconFileInvoice,
-  IconGauge,
-  IconHistory,
-  IconMap2,
-  IconScale,
-  IconTags,
-  IconTractor,
-  IconUserCircle,
-  IconUsers,
-  IconUsersGroup,
-  type Icon,
-} from '@tabler/icons-react';
 import { paths } from './paths';
 
 /** `view` shows an area; `manage` also shows its create, edit and remove controls. */
@@ -29,7 +13,6 @@ export interface Area {
   key: string;
   label: string;
   href: string;
-  icon: Icon;
   access: Partial<Record<Role, Access>>;
   /** Sub-pages shown under the area in the navigation; the area's own href is the first. */
   links?: readonly AreaLink[];
@@ -39,15 +22,16 @@ const everyone = { owner: 'manage', partner: 'manage', operator: 'manage', bookk
 
 /**
  * Which role sees which part of the app, in navigation order. The server enforces the same
- * rules on every request; this map only decides what to show. A new area is one entry here.
+ * rules on every request; this map only decides what to show. A new area is one entry here and its
+ * icon in the navigation (MainNav). The icons live there so that pages needing only the access rules
+ * (the cab page's start) do not load them.
  */
 export const AREAS = [
-  { key: 'dashboard', label: 'Dashboard', href: paths.dashboard(), icon: IconGauge, access: everyone },
+  { key: 'dashboard', label: 'Dashboard', href: paths.dashboard(), access: everyone },
   {
     key: 'work',
     label: 'Work',
     href: paths.work.entries(),
-    icon: IconClipboardList,
     // An operator manages only their own entries; the server scopes every read and write to them.
     access: { owner: 'manage', partner: 'manage', operator: 'manage', bookkeeper: 'view' },
   },
@@ -55,21 +39,18 @@ export const AREAS = [
     key: 'machines',
     label: 'Machines',
     href: paths.machines(),
-    icon: IconTractor,
     access: { owner: 'manage', partner: 'manage', operator: 'view', bookkeeper: 'view' },
   },
   {
     key: 'fields',
     label: 'Fields',
     href: paths.fields(),
-    icon: IconMap2,
     access: { owner: 'manage', partner: 'manage', operator: 'view', bookkeeper: 'view' },
   },
   {
     key: 'squareUps',
     label: 'Square-up',
     href: paths.squareUps(),
-    icon: IconScale,
     // Owner and partner open, record and close periods; the bookkeeper reads and exports them.
     access: { owner: 'manage', partner: 'manage', bookkeeper: 'view' },
   },
@@ -77,7 +58,6 @@ export const AREAS = [
     key: 'yearEnd',
     label: 'Year-end',
     href: paths.yearEnd(),
-    icon: IconChartBar,
     // Only the owner turns suggested rates into next year's family rate sheet.
     access: { owner: 'manage', partner: 'view', bookkeeper: 'view' },
   },
@@ -85,7 +65,6 @@ export const AREAS = [
     key: 'invoices',
     label: 'Invoices',
     href: paths.invoices(),
-    icon: IconFileInvoice,
     // Drafting, issuing, payments and refunds are the owner's; partner and bookkeeper read and download, as the server allows.
     access: { owner: 'manage', partner: 'view', bookkeeper: 'view' },
   },
@@ -93,14 +72,12 @@ export const AREAS = [
     key: 'rates',
     label: 'Rates',
     href: paths.rateSheets(),
-    icon: IconTags,
     access: { owner: 'manage', partner: 'view', bookkeeper: 'view' },
   },
   {
     key: 'estimates',
     label: 'Estimates',
     href: paths.estimates.machineRate(),
-    icon: IconCalculator,
     // Estimates store nothing, but they are money figures, so operators and customers do not see them.
     access: { owner: 'manage', partner: 'manage', bookkeeper: 'manage' },
     links: [
@@ -113,15 +90,14 @@ export const AREAS = [
     key: 'parties',
     label: 'Parties',
     href: paths.parties(),
-    icon: IconUsersGroup,
     access: { owner: 'manage', partner: 'manage', bookkeeper: 'view' },
   },
-  { key: 'users', label: 'Users', href: paths.users(), icon: IconUsers, access: { owner: 'manage', bookkeeper: 'view' } },
+  { key: 'users', label: 'Users', href: paths.users(), access: { owner: 'manage', bookkeeper: 'view' } },
   // Read only, for everyone who may see it: the log is never edited.
-  { key: 'audit', label: 'Audit log', href: paths.audit(), icon: IconHistory, access: { owner: 'view', bookkeeper: 'view' } },
+  { key: 'audit', label: 'Audit log', href: paths.audit(), access: { owner: 'view', bookkeeper: 'view' } },
   // A customer sees only the invoices addressed to them; the server scopes every read to their party.
-  { key: 'myInvoices', label: 'My invoices', href: paths.myInvoices(), icon: IconFileInvoice, access: { customer: 'manage' } },
-  { key: 'account', label: 'Account', href: paths.account(), icon: IconUserCircle, access: everyone },
+  { key: 'myInvoices', label: 'My invoices', href: paths.myInvoices(), access: { customer: 'manage' } },
+  { key: 'account', label: 'Account', href: paths.account(), access: everyone },
 ] as const satisfies readonly Area[];
 
 export type AreaKey = (typeof AREAS)[number]['key'];

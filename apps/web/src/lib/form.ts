@@ -1,47 +1,11 @@
-import { useEffect, useRef, useState, type FormEvent } from 'react';
+import { useState, type FormEvent } from 'react';
 import { useForm, type FormErrors } from '@mantine/form';
 import type { UseMutationResult } from '@tanstack/react-query';
-import type { ZodType } from 'zod';
-import { hasPath, placeServerIssues, samePath, type IssuePathMap } from './serverIssues';
+import { useSchema, type SchemaSource } from './lazySchema';
+import { hasPath, placeServerIssues, remapErrors, samePath, schemaErrors, type IssuePathMap } from './serverIssues';
 
 // Mantine's own constraint; unlike Record<string, unknown> it also accepts plain interfaces.
 type FormValues = Record<string, any>;
-
-function remapErrors<Values>(errors: FormErrors, issuePath: IssuePathMap<Values>, values: Values): FormErrors {
-  const mapped: FormErrors = {};
-  for (const [path, message] of Object.entries(errors)) mapped[issuePath(path, values)] ??= message;
-  return mapped;
-}
-
-/**
- * The schema itself, or a loader for it: a page that must show quickly (the cab form) loads zod and its
- * schema right after it is drawn, and a submit before it has arrived waits for it rather than skip the checks.
- */
-export type SchemaSource = ZodType | (() => Promise<ZodType>);
-
-/** The schema's issues by dotted path, the last one for a path winning, as @mantine/form expects them. */
-export function schemaErrors(schema: ZodType, payload: unknown): FormErrors {
-  const parsed = schema.safeParse(payload);
-  if (parsed.success) return {};
-  const errors: FormErrors = {};
-  for (const issue of parsed.error.issues) errors[issue.path.join('.')] = issue.message;
-  return errors;
-}
-
-function useSchema(source: SchemaSource) {
-  const loaded = useRef<ZodType | null>(typeof source === 'function' ? null : source);
-  const loading = useRef<Promise<ZodType> | null>(null);
-  const load = () => {
-    if (typeof source !== 'function') return Promise.resolve(source);
-    loading.current ??= source().then((schema) => (loaded.current = schema));
-    return loading.current;
-  };
-  useEffect(() => {
-    void load();
-    // The source is fixed for the form's life.
-  }, []);
-  return { loaded, load };
-}
 
 interface ServerFormOptions<Values extends FormValues, Payload, Result> {
   /** The shared zod schema of the request; the form checks exactly what it is about to send. */

@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import type { ZodType } from 'zod';
 import { isApiError } from './api';
 
 // The same shape as @mantine/form's errors, without loading it: the sign-in page checks its two fields by hand.
@@ -43,3 +44,18 @@ export function placeServerIssues<Values>(
   return { fieldErrors, banner: [...lead, ...unplaced.filter((m) => m !== error.message)].join(' ') };
 }
 
+/** The schema's issues by dotted path, the last one for a path winning, as the forms show them. */
+export function schemaErrors(schema: ZodType, payload: unknown): FieldErrors {
+  const parsed = schema.safeParse(payload);
+  if (parsed.success) return {};
+  const errors: FieldErrors = {};
+  for (const issue of parsed.error.issues) errors[issue.path.join('.')] = issue.message;
+  return errors;
+}
+
+/** Moves each issue from the request's path to the form field that holds it. */
+export function remapErrors<Values>(errors: FieldErrors, issuePath: IssuePathMap<Values>, values: Values): FieldErrors {
+  const mapped: FieldErrors = {};
+  for (const [path, message] of Object.entries(errors)) mapped[issuePath(path, values)] ??= message;
+  return mapped;
+}

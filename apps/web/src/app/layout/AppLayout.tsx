@@ -1,8 +1,8 @@
 import { lazy, Suspense, useEffect, useState } from 'react';
-import { AppShell, Burger, Group, Skeleton, Text } from '@mantine/core';
+import { Anchor, AppShell, Burger, Group, Skeleton, Text } from '@mantine/core';
 import { useDisclosure } from '@mantine/hooks';
 import { QueryClientProvider } from '@tanstack/react-query';
-import { useLocation } from 'react-router-dom';
+import { Link, useLocation } from 'react-router-dom';
 import { DatabaseDownNotice } from '../../components/DatabaseDownNotice';
 import { NotAllowed } from '../../components/NotAllowed';
 import { NotFound } from '../../components/NotFound';
@@ -94,7 +94,15 @@ export default function AppLayout() {
           <DatabaseDownNotice />
           <PhoneQueueSync userId={user.id} />
           {/* The cab form shows the queue itself, beside the entries it lists. */}
-          {location.pathname !== paths.work.log() && <PhoneQueueStatus />}
+          {location.pathname !== paths.work.log() && (
+            <PhoneQueueStatus
+              linkToLogPage={(label) => (
+                <Anchor component={Link} to={paths.work.log()} size="sm">
+                  {label}
+                </Anchor>
+              )}
+            />
+          )}
           <RouteErrorBoundary refusals={REFUSALS}>
             <Suspense fallback={<Skeleton h={320} maw={720} />}>
               <SignedInRoutes />

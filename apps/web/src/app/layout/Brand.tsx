@@ -1,26 +1,11 @@
-import { Group, Text } from '@mantine/core';
 import { Link } from 'react-router-dom';
 import { paths } from '../../lib/paths';
-
-function BrandMark() {
-  return (
-    <svg width="32" height="32" viewBox="0 0 64 64" aria-hidden="true">
-      <rect width="64" height="64" rx="14" fill="#f3ded2" />
-      <path d="M16 44V20h6v9h20v-9h6v24h-6v-9H22v9z" fill="#1c5058" />
-      <circle cx="32" cy="46" r="5" fill="#cc6b38" />
-    </svg>
-  );
-}
+import { BrandLockup } from './BrandLockup';
 
 export function Brand() {
   return (
     <Link to={paths.dashboard()} style={{ textDecoration: 'none' }} aria-label="Hitchbook home">
-      <Group gap={8} wrap="nowrap">
-        <BrandMark />
-        <Text fw={700} size="lg" c="white">
-          Hitchbook
-        </Text>
-      </Group>
+      <BrandLockup />
     </Link>
   );
 }

@@ -1,7 +1,40 @@
 import { Box, NavLink, Stack, Text } from '@mantine/core';
 import type { Role } from '@hitchbook/shared/roles';
 import { Link, useLocation } from 'react-router-dom';
-import { areasFor, type Area } from '../../lib/areas';
+import {
+  IconCalculator,
+  IconChartBar,
+  IconClipboardList,
+  IconFileInvoice,
+  IconGauge,
+  IconHistory,
+  IconMap2,
+  IconScale,
+  IconTags,
+  IconTractor,
+  IconUserCircle,
+  IconUsers,
+  IconUsersGroup,
+  type Icon,
+} from '@tabler/icons-react';
+import { areasFor, type Area, type AreaKey } from '../../lib/areas';
+
+const AREA_ICONS: Record<AreaKey, Icon> = {
+  dashboard: IconGauge,
+  work: IconClipboardList,
+  machines: IconTractor,
+  fields: IconMap2,
+  squareUps: IconScale,
+  yearEnd: IconChartBar,
+  invoices: IconFileInvoice,
+  rates: IconTags,
+  estimates: IconCalculator,
+  parties: IconUsersGroup,
+  users: IconUsers,
+  audit: IconHistory,
+  myInvoices: IconFileInvoice,
+  account: IconUserCircle,
+};
 
 function isActive(pathname: string, href: string): boolean {
   return href === '/' ? pathname === '/' : pathname === href || pathname.startsWith(`${href}/`);
@@ -13,7 +46,7 @@ function currentPage(pathname: string, href: string): 'page' | undefined {
 }
 
 function AreaLink({ area, pathname }: { area: Area; pathname: string }) {
-  const Icon = area.icon;
+  const Icon = AREA_ICONS[area.key as AreaKey];
   const links = area.links ?? [];
   const inArea = isActive(pathname, area.href) || links.some((l) => isActive(pathname, l.href));
   if (links.length === 0) {

@@ -1,6 +1,5 @@
 import { useSyncExternalStore } from 'react';
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { refreshAfterEntryChange, type NewWorkEntry, type saveWorkEntry } from '../work/api/saveWorkEntry';
+import type { NewWorkEntry, saveWorkEntry } from '../work/api/saveWorkEntry';
 import type { QueuedEntry } from './entryQueue';
 import type { SendProgress, SendRun } from './sendQueue';
 
@@ -61,19 +60,6 @@ export async function sendWaiting(userId: string): Promise<SendRun> {
 /** See phoneQueueEngine's saveOrQueueWorkEntry: sent at once with signal, kept on the phone without. */
 export async function saveOrQueueWorkEntry(userId: string, payload: NewWorkEntry, files: readonly File[] = []): Promise<SaveOutcome> {
   return (await queueEngine()).saveOrQueueWorkEntry(userId, payload, files);
-}
-
-/**
- * The cab form's mutation: it runs with or without signal, since without it the entry is queued.
- * `photos` gives the photos picked on the form at the moment of saving.
- */
-export function useSaveOrQueueWorkEntry(userId: string, photos: () => readonly File[] = () => []) {
-  const client = useQueryClient();
-  return useMutation({
-    networkMode: 'always',
-    mutationFn: (payload: NewWorkEntry) => saveOrQueueWorkEntry(userId, payload, photos()),
-    onSuccess: (outcome) => (outcome.kind === 'saved' ? refreshAfterEntryChange(client) : undefined),
-  });
 }
 
 /** The operator fixed a refused entry; it waits again and goes at once when there is signal. */

@@ -1,10 +1,6 @@
 import type { Role } from '@hitchbook/shared/roles';
-import { useBillToParties } from './api/listBillToParties';
-import { useFieldOptions } from './api/listFieldOptions';
-import { useMachineOptions } from './api/listMachineOptions';
-import { useOperators } from './api/listMembers';
-import { useWorkTypes } from './api/listWorkTypes';
 import type { EntryOptions } from './components/EntryFields';
+import { useBillToParties, useFieldOptions, useMachineOptions, useOperators, useWorkTypes } from './api/entryOptionQueries';
 
 /**
  * Everything the entry form picks from, loaded together. Only an owner picks the operator: a

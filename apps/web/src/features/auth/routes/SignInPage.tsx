@@ -1,6 +1,5 @@
 import { useState, type ChangeEvent, type FormEvent } from 'react';
 import { Anchor, Button, Stack, TextInput, Title } from '@mantine/core';
-import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { FormErrorAlert } from '../../../components/FormErrorAlert';
 import { useAuth } from '../../../lib/auth';
 import { paths, safeNextPath } from '../../../lib/paths';
@@ -11,9 +10,9 @@ import { signInIssues, type SignInValues } from '../signInChecks';
 // The first page most people see, often on a phone in a yard: two fields checked by hand rather than
 // through the form recipe, so it loads neither zod nor the query cache. It behaves like the recipe: a
 // field is checked when left after typing in it, everything on submit, the server's issues on their fields.
+// It needs no router either: opened straight it is drawn on its own (app/signin), and once signed in the
+// person goes on with a page load, which brings the rest of the app.
 export function Component() {
-  const [searchParams] = useSearchParams();
-  const navigate = useNavigate();
   const { signIn } = useAuth();
   const [values, setValues] = useState<SignInValues>({ email: '', password: '' });
   const [errors, setErrors] = useState<FieldErrors>({});
@@ -46,7 +45,7 @@ export function Component() {
     setSubmitting(true);
     try {
       await signIn(values.email, values.password);
-      navigate(safeNextPath(searchParams.get('next')), { replace: true });
+      window.location.replace(safeNextPath(new URLSearchParams(window.location.search).get('next')));
     } catch (error) {
       const { fieldErrors, banner } = placeServerIssues(values, error);
       setErrors(fieldErrors);
@@ -75,7 +74,7 @@ export function Component() {
         <Button type="submit" size="lg" loading={submitting} fullWidth>
           Sign in
         </Button>
-        <Anchor component={Link} to={paths.forgotPassword()} ta="center">
+        <Anchor href={paths.forgotPassword()} ta="center">
           Forgot your password?
         </Anchor>
       </Stack>

@@ -1,8 +1,7 @@
-import { Alert, Anchor, Button, Group, Progress, Stack, Text } from '@mantine/core';
+import type { ReactNode } from 'react';
+import { Alert, Button, Group, Progress, Stack, Text } from '@mantine/core';
 import { useNetwork } from '@mantine/hooks';
 import { IconAlertTriangle, IconCloudOff, IconDeviceMobile, IconSend } from '@tabler/icons-react';
-import { Link } from 'react-router-dom';
-import { paths } from '../../../lib/paths';
 import type { QueuedEntry } from '../entryQueue';
 import { photoBudgetLine } from '../photoBudget';
 import { photoBytesWaiting, sendWaiting, usePhoneQueue } from '../phoneQueue';
@@ -20,7 +19,7 @@ export function waitingLabel(count: number): string {
  * The queue in one line for the shell and the cab form: how many entries wait, the send under
  * way, and what the server refused. Says nothing when there is nothing on the phone and signal.
  */
-export function PhoneQueueStatus({ showLink = true }: { showLink?: boolean }) {
+export function PhoneQueueStatus({ linkToLogPage }: { linkToLogPage?: (label: string) => ReactNode }) {
   const { userId, entries, progress, stopped } = usePhoneQueue();
   const { online } = useNetwork();
   const waiting = entries.filter((e) => e.state === 'waiting').length;
@@ -61,11 +60,7 @@ export function PhoneQueueStatus({ showLink = true }: { showLink?: boolean }) {
               <Button size="md" leftSection={<IconSend size={18} />} disabled={!online || Boolean(progress)} onClick={() => void sendWaiting(userId)}>
                 Send now
               </Button>
-              {showLink && (
-                <Anchor component={Link} to={paths.work.log()}>
-                  See them
-                </Anchor>
-              )}
+              {linkToLogPage?.('See them')}
             </Group>
           </Stack>
         </Alert>
@@ -76,11 +71,7 @@ export function PhoneQueueStatus({ showLink = true }: { showLink?: boolean }) {
             {refusalLine(refused[0]!)}
             {refused.length > 1 ? ` (and ${refused.length - 1} more)` : ''} Fix or delete {refused.length === 1 ? 'it' : 'them'}; nothing is sent until then.
           </Text>
-          {showLink && (
-            <Anchor component={Link} to={paths.work.log()} size="sm">
-              Fix on the log page
-            </Anchor>
-          )}
+          {linkToLogPage?.('Fix on the log page')}
         </Alert>
       )}
     </Stack>

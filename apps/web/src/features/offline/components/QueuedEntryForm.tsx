@@ -1,12 +1,10 @@
 import { useEffect } from 'react';
 import { Button, Group, Stack } from '@mantine/core';
-import { useMutation } from '@tanstack/react-query';
 import { FormErrorAlert } from '../../../components/FormErrorAlert';
-import { useServerForm } from '../../../lib/form';
-import type { NewWorkEntry } from '../../work/api/saveWorkEntry';
 import { EntryFields, type EntryOptions } from '../../work/components/EntryFields';
 import { entryIssuePath, newEntryPayload } from '../../work/entryForm';
 import { loadEntrySchema } from '../../work/entrySchema';
+import { useEntryForm } from '../../work/useEntryForm';
 import type { QueuedEntry } from '../entryQueue';
 import { fixQueuedEntry } from '../phoneQueue';
 import { queuedEntryValues } from '../queuedEntryValues';
@@ -20,17 +18,12 @@ interface QueuedEntryFormProps {
 
 /** Fixing an entry the server refused: the same fields, the server's issues on them, the same clientId. */
 export function QueuedEntryForm({ entry, operatorName, options, onDone }: QueuedEntryFormProps) {
-  const fix = useMutation({
-    networkMode: 'always',
-    mutationFn: (payload: NewWorkEntry) => fixQueuedEntry(entry.userId, entry.clientId, payload),
-  });
   const state = entry.payload.state === 'draft' ? 'draft' : 'submitted';
-  const { form, onSubmit, formError, submitting } = useServerForm({
+  const { form, onSubmit, formError, submitting } = useEntryForm({
     schema: loadEntrySchema,
     initialValues: queuedEntryValues(entry.payload),
     toPayload: (values) => newEntryPayload(values, entry.clientId, state),
-    mutation: fix,
-    issuePath: entryIssuePath,
+    send: (payload) => fixQueuedEntry(entry.userId, entry.clientId, payload),
     onSuccess: onDone,
   });
 

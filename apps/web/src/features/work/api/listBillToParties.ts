@@ -1,7 +1,6 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Page } from '@hitchbook/shared/schemas/common';
 import { api } from '../../../lib/api';
-import { KEEP_FOR_OFFLINE, OFFLINE_FIRST } from '../../offline/networkMode';
+import { KEEP_FOR_OFFLINE } from '../../offline/networkMode';
 
 export interface BillToParty {
   id: string;
@@ -9,17 +8,9 @@ export interface BillToParty {
   kind: 'household' | 'customer';
 }
 
-const EVERY_PARTY = { pageSize: 200, sort: 'name' } as const;
+export const EVERY_PARTY = { pageSize: 200, sort: 'name' } as const;
 
 /** Work is billed to a household of the outfit (squared up) or to a customer (invoiced). */
 export function listBillToParties(signal?: AbortSignal) {
   return api.get<Page<BillToParty>>('/api/parties', { query: EVERY_PARTY, signal, headers: KEEP_FOR_OFFLINE }).then((page) => page.items);
-}
-
-export function billToPartiesQueryOptions() {
-  return queryOptions({ networkMode: OFFLINE_FIRST, queryKey: ['parties', 'list', EVERY_PARTY, 'options'], queryFn: ({ signal }) => listBillToParties(signal), staleTime: 60_000 });
-}
-
-export function useBillToParties() {
-  return useQuery(billToPartiesQueryOptions());
 }

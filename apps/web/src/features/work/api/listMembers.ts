@@ -1,8 +1,7 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Role } from '@hitchbook/shared/roles';
 import type { Page } from '@hitchbook/shared/schemas/common';
 import { api } from '../../../lib/api';
-import { KEEP_FOR_OFFLINE, OFFLINE_FIRST } from '../../offline/networkMode';
+import { KEEP_FOR_OFFLINE } from '../../offline/networkMode';
 
 export interface Member {
   userId: string;
@@ -20,15 +19,7 @@ export function listMembers(signal?: AbortSignal) {
   return api.get<Page<Member>>('/api/users', { query: { pageSize: 200 }, signal, headers: KEEP_FOR_OFFLINE }).then((page) => page.items);
 }
 
-export function membersQueryOptions() {
-  return queryOptions({ networkMode: OFFLINE_FIRST, queryKey: ['users', 'list', { pageSize: 200 }, 'options'], queryFn: ({ signal }) => listMembers(signal), staleTime: 60_000 });
-}
-
 /** The people who can run a machine: owners, partners and operators who have signed in. */
-export function useOperators(role: Role) {
-  return useQuery({
-    ...membersQueryOptions(),
-    enabled: MEMBER_READERS.includes(role),
-    select: (members) => members.filter((m) => LOGGERS.includes(m.role) && m.status === 'active'),
-  });
+export function activeOperators(members: readonly Member[]): Member[] {
+  return members.filter((m) => LOGGERS.includes(m.role) && m.status === 'active');
 }

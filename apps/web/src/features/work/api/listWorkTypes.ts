@@ -1,17 +1,8 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Page } from '@hitchbook/shared/schemas/common';
 import type { WorkTypeDto } from '@hitchbook/shared/schemas/work-types';
 import { api } from '../../../lib/api';
-import { KEEP_FOR_OFFLINE, OFFLINE_FIRST } from '../../offline/networkMode';
+import { KEEP_FOR_OFFLINE } from '../../offline/networkMode';
 
 export function listWorkTypes(signal?: AbortSignal) {
   return api.get<Page<WorkTypeDto>>('/api/work-types', { query: { pageSize: 100 }, signal, headers: KEEP_FOR_OFFLINE }).then((page) => page.items);
-}
-
-export function workTypesQueryOptions() {
-  return queryOptions({ networkMode: OFFLINE_FIRST, queryKey: ['work-types', 'list'], queryFn: ({ signal }) => listWorkTypes(signal), staleTime: 5 * 60_000 });
-}
-
-export function useWorkTypes() {
-  return useQuery(workTypesQueryOptions());
 }

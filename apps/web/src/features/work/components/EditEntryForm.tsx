@@ -1,13 +1,13 @@
 import { useRef, useState } from 'react';
 import { Stack } from '@mantine/core';
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useQueryClient } from '@tanstack/react-query';
 import { workEntryUpdateSchema, type WorkEntryWithWarnings } from '@hitchbook/shared/schemas/work-entries';
 import { FormErrorAlert } from '../../../components/FormErrorAlert';
-import { useServerForm } from '../../../lib/form';
 import { refreshAfterEntryChange } from '../api/saveWorkEntry';
 import { submitWorkEntry } from '../api/submitWorkEntry';
 import { updateWorkEntry, type WorkEntryChange } from '../api/updateWorkEntry';
-import { entryChangePayload, entryFormValues, entryIssuePath } from '../entryForm';
+import { entryChangePayload, entryFormValues } from '../entryForm';
+import { useEntryForm } from '../useEntryForm';
 import { EntryActions, type EntryIntent } from './EntryActions';
 import { EntryFields, type EntryOptions } from './EntryFields';
 
@@ -23,21 +23,20 @@ export function EditEntryForm({ entry, operatorName, options, onSaved }: EditEnt
   const queryClient = useQueryClient();
   const intent = useRef<EntryIntent>('draft');
   const [shownIntent, setShownIntent] = useState<EntryIntent>('draft');
-  const save = useMutation({
-    mutationFn: async (change: WorkEntryChange) => {
-      const saved = await updateWorkEntry(entry.id, change);
-      return intent.current === 'submitted' && saved.state === 'draft' ? submitWorkEntry(saved.id, saved.version) : saved;
-    },
-    onSuccess: () => refreshAfterEntryChange(queryClient),
-  });
+  const save = async (change: WorkEntryChange) => {
+    const saved = await updateWorkEntry(entry.id, change);
+    return intent.current === 'submitted' && saved.state === 'draft' ? submitWorkEntry(saved.id, saved.version) : saved;
+  };
   const [initial] = useState(() => entryFormValues(entry));
-  const { form, onSubmit, formError, submitting } = useServerForm({
+  const { form, onSubmit, formError, submitting } = useEntryForm({
     schema: workEntryUpdateSchema,
     initialValues: initial,
     toPayload: (values) => entryChangePayload(values, initial, entry.version),
-    mutation: save,
-    issuePath: entryIssuePath,
-    onSuccess: onSaved,
+    send: save,
+    onSuccess: (saved) => {
+      void refreshAfterEntryChange(queryClient);
+      onSaved(saved);
+    },
   });
   const rig = { powerMachineId: entry.powerMachineId, implementMachineId: entry.implementMachineId };
 

@@ -1,5 +1,6 @@
-import { Button, SimpleGrid } from '@mantine/core';
+import { Button } from '@mantine/core';
 import { IconDeviceFloppy, IconSend } from '@tabler/icons-react';
+import { FormGrid } from '../../../components/FormGrid';
 
 export type EntryIntent = 'draft' | 'submitted';
 
@@ -15,7 +16,7 @@ interface EntryActionsProps {
 /** Two full-width buttons, the one that sends the entry on for approval the larger target. */
 export function EntryActions({ submitting, intent, onIntent, draftLabel, submitLabel }: EntryActionsProps) {
   return (
-    <SimpleGrid cols={{ base: 1, xs: submitLabel ? 2 : 1 }} spacing="sm">
+    <FormGrid gap="sm">
       {submitLabel && (
         <Button
           type="submit"
@@ -39,6 +40,6 @@ export function EntryActions({ submitting, intent, onIntent, draftLabel, submitL
       >
         {draftLabel}
       </Button>
-    </SimpleGrid>
+    </FormGrid>
   );
 }

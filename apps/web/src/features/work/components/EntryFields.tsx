@@ -1,18 +1,17 @@
-import { useEffect, useState, type ReactNode } from 'react';
-import { NativeSelect, Paper, SegmentedControl, SimpleGrid, Stack, Text, TextInput, Textarea, Title } from '@mantine/core';
-import type { UseFormReturnType } from '@mantine/form';
+import { lazy, Suspense, useEffect, useState, type ReactNode } from 'react';
+import { Button, InputBase, NativeSelect, Paper, Stack, Text, TextInput, Title } from '@mantine/core';
 import type { FieldDto } from '@hitchbook/shared/schemas/fields';
-import type { MachineDto } from '@hitchbook/shared/schemas/machines';
+import type { MachineDto, MeterReadingDto } from '@hitchbook/shared/schemas/machines';
 import type { WorkTypeDto } from '@hitchbook/shared/schemas/work-types';
 import { DecimalInput } from '../../../components/DecimalInput';
+import { FormGrid } from '../../../components/FormGrid';
 import type { BillToParty } from '../api/listBillToParties';
-import { useLastMeterReading } from '../api/lastMeterReading';
 import type { Member } from '../api/listMembers';
-import { hoursReadout, plainDecimal, type EntryFormValues } from '../entryForm';
+import { hoursReadout, plainDecimal, type TimingMode } from '../entryForm';
 import type { LastUsedRig } from '../lastUsed';
 import { fieldPickerData, machinePickerData, withBlank, workTypePickerData } from '../pickers';
 import { formatQuantity } from '../quantity';
-import { CautionAlerts } from './CautionAlerts';
+import type { EntryFormControls } from '../useEntryForm';
 
 export interface EntryOptions {
   machines: MachineDto[];
@@ -26,6 +25,36 @@ export interface EntryOptions {
 // Glove-sized: every control is at least 50 px tall and read at arm's length. The pickers are the phone's
 // own (a wheel or a full-screen list), which a gloved thumb works better than a dropdown drawn on the page.
 const BIG = 'lg';
+
+// Shown only once a kind of work with cautions is picked, so its texts load after the form is drawn.
+const CautionAlerts = lazy(() => import('./CautionAlerts').then((module) => ({ default: module.CautionAlerts })));
+
+const TIMINGS: { value: TimingMode; label: string }[] = [
+  { value: 'meter', label: 'Hour meter' },
+  { value: 'clock', label: 'Clock' },
+  { value: 'hours', label: 'Hours' },
+];
+
+/** Three big buttons, one pressed: how the operator gives the time. */
+function TimingChoice({ value, onChange }: { value: string; onChange: (timing: TimingMode) => void }) {
+  return (
+    <Button.Group aria-label="How you give the time">
+      {TIMINGS.map((timing) => (
+        <Button
+          key={timing.value}
+          size={BIG}
+          flex={1}
+          px="xs"
+          variant={value === timing.value ? 'filled' : 'default'}
+          aria-pressed={value === timing.value}
+          onClick={() => onChange(timing.value)}
+        >
+          {timing.label}
+        </Button>
+      ))}
+    </Button.Group>
+  );
+}
 
 function Section({ title, children }: { title: string; children: ReactNode }) {
   return (
@@ -41,28 +70,29 @@ function Section({ title, children }: { title: string; children: ReactNode }) {
 }
 
 interface EntryFieldsProps {
-  form: UseFormReturnType<EntryFormValues>;
+  form: EntryFormControls;
   options: EntryOptions;
   operatorName: string;
   lastUsed: LastUsedRig;
   /** On an edit, stored figures are never replaced by suggestions. */
   editing: boolean;
+  /** The power unit's last meter reading (null: none yet; left out: not known), suggested as the meter start. */
+  lastReading?: MeterReadingDto | null;
 }
 
-export function EntryFields({ form, options, operatorName, lastUsed, editing }: EntryFieldsProps) {
+export function EntryFields({ form, options, operatorName, lastUsed, editing, lastReading }: EntryFieldsProps) {
   const values = form.getValues();
   // Suggestions fill a figure only until the operator types over it.
   const [typed, setTyped] = useState({ meterStart: editing, acres: editing, billTo: editing });
-  const lastReading = useLastMeterReading(values.timing === 'meter' ? values.powerMachineId || null : null);
   const field = options.fields.find((f) => f.id === values.fieldId) ?? null;
   const workType = options.workTypes.find((t) => t.id === values.workTypeId) ?? null;
   const readout = hoursReadout(values);
 
   useEffect(() => {
-    if (typed.meterStart || lastReading.data === undefined) return;
-    form.setFieldValue('meterStart', lastReading.data?.hours ?? '');
+    if (typed.meterStart || lastReading === undefined) return;
+    form.setFieldValue('meterStart', lastReading?.hours ?? '');
     // The form object lives as long as the form; only a new reading should refill the start.
-  }, [lastReading.data, typed.meterStart]);
+  }, [lastReading, typed.meterStart]);
 
   function pickField(id: string) {
     form.setFieldValue('fieldId', id);
@@ -82,7 +112,7 @@ export function EntryFields({ form, options, operatorName, lastUsed, editing }: 
   return (
     <Stack gap="md">
       <Section title="When and who">
-        <SimpleGrid cols={{ base: 1, xs: 2 }}>
+        <FormGrid>
           <TextInput size={BIG} label="Day of the work" type="date" {...form.getInputProps('workDate')} />
           {options.operators ? (
             <NativeSelect
@@ -94,7 +124,7 @@ export function EntryFields({ form, options, operatorName, lastUsed, editing }: 
           ) : (
             <TextInput size={BIG} label="Operator" value={operatorName} readOnly variant="filled" />
           )}
-        </SimpleGrid>
+        </FormGrid>
       </Section>
 
       <Section title="Where and what">
@@ -113,7 +143,11 @@ export function EntryFields({ form, options, operatorName, lastUsed, editing }: 
           {...form.getInputProps('workTypeId')}
           data-testid="entry-work-type"
         />
-        {workType && <CautionAlerts keys={workType.cautions} />}
+        {workType && workType.cautions.length > 0 && (
+          <Suspense fallback={null}>
+            <CautionAlerts keys={workType.cautions} />
+          </Suspense>
+        )}
       </Section>
 
       <Section title="Machines">
@@ -134,19 +168,9 @@ export function EntryFields({ form, options, operatorName, lastUsed, editing }: 
       </Section>
 
       <Section title="Time">
-        <SegmentedControl
-          size={BIG}
-          fullWidth
-          aria-label="How you give the time"
-          data={[
-            { value: 'meter', label: 'Hour meter' },
-            { value: 'clock', label: 'Clock' },
-            { value: 'hours', label: 'Hours' },
-          ]}
-          {...form.getInputProps('timing')}
-        />
+        <TimingChoice value={values.timing} onChange={(timing) => form.setFieldValue('timing', timing)} />
         {values.timing === 'meter' && (
-          <SimpleGrid cols={2}>
+          <FormGrid alwaysTwo>
             <DecimalInput
               size={BIG}
               label="Meter start"
@@ -158,18 +182,18 @@ export function EntryFields({ form, options, operatorName, lastUsed, editing }: 
               }}
             />
             <DecimalInput size={BIG} label="Meter end" unit="h" {...form.getInputProps('meterEnd')} />
-          </SimpleGrid>
+          </FormGrid>
         )}
-        {values.timing === 'meter' && lastReading.data && !typed.meterStart && (
+        {values.timing === 'meter' && lastReading && !typed.meterStart && (
           <Text size="sm" c="dimmed">
             Meter start is the machine&apos;s last reading.
           </Text>
         )}
         {values.timing === 'clock' && (
-          <SimpleGrid cols={2}>
+          <FormGrid alwaysTwo>
             <TextInput size={BIG} label="Started" type="time" {...form.getInputProps('startTime')} />
             <TextInput size={BIG} label="Finished" type="time" {...form.getInputProps('endTime')} />
-          </SimpleGrid>
+          </FormGrid>
         )}
         {values.timing === 'hours' && <DecimalInput size={BIG} label="Machine hours" unit="h" {...form.getInputProps('hours')} />}
         <Text size="xl" fw={700} aria-live="polite" data-testid="hours-readout">
@@ -184,7 +208,7 @@ export function EntryFields({ form, options, operatorName, lastUsed, editing }: 
       </Section>
 
       <Section title="What got done">
-        <SimpleGrid cols={2}>
+        <FormGrid alwaysTwo>
           <DecimalInput
             size={BIG}
             label="Acres"
@@ -198,7 +222,7 @@ export function EntryFields({ form, options, operatorName, lastUsed, editing }: 
           {field?.kind === 'roadside' && <DecimalInput size={BIG} label="Miles" unit="mi" {...form.getInputProps('miles')} />}
           {workType?.defaultUnit === 'load' && <DecimalInput size={BIG} label="Loads" {...form.getInputProps('loads')} />}
           <DecimalInput size={BIG} label="Fuel added" unit="gal" {...form.getInputProps('fuelGallons')} />
-        </SimpleGrid>
+        </FormGrid>
         {field && !typed.acres && (
           <Text size="sm" c="dimmed">
             Acres are the whole {field.kind === 'roadside' ? 'stretch' : 'field'}; change them for a partial pass.
@@ -226,7 +250,7 @@ export function EntryFields({ form, options, operatorName, lastUsed, editing }: 
           }}
           data-testid="entry-bill-to"
         />
-        <Textarea size={BIG} label="Notes" autosize minRows={2} {...form.getInputProps('notes')} />
+        <InputBase component="textarea" multiline rows={3} size={BIG} label="Notes" {...form.getInputProps('notes')} />
       </Section>
     </Stack>
   );

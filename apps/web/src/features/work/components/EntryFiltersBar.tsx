@@ -3,14 +3,11 @@ import { IconX } from '@tabler/icons-react';
 import type { Role } from '@hitchbook/shared/roles';
 import { WORK_ENTRY_STATES } from '@hitchbook/shared/schemas/work-entries';
 import type { WorkEntryFilters } from '../api/listWorkEntries';
-import { useBillToParties } from '../api/listBillToParties';
-import { useFieldOptions } from '../api/listFieldOptions';
-import { useMachineOptions } from '../api/listMachineOptions';
-import { MEMBER_READERS, useOperators } from '../api/listMembers';
-import { useWorkTypes } from '../api/listWorkTypes';
 import { CLEARED_FILTERS, hasFilters } from '../entryFilters';
 import { STATE_LABELS } from '../labels';
 import { fieldPickerData, machinePickerData } from '../pickers';
+import { useBillToParties, useFieldOptions, useMachineOptions, useOperators, useWorkTypes } from '../api/entryOptionQueries';
+import { MEMBER_READERS } from '../api/listMembers';
 
 interface EntryFiltersBarProps {
   role: Role;

@@ -1,9 +1,15 @@
-import { useRef, useState } from 'react';
+import { lazy, Suspense, useRef, useState } from 'react';
 import { Alert, Button, Group, Stack, Text } from '@mantine/core';
 import { IconCamera } from '@tabler/icons-react';
-import { choosePhotos, type PhotoLimits } from '../photoChoice';
-import { downscalePhoto } from '../photoScale';
-import { PhotoThumb } from './PhotoThumb';
+import type { PhotoLimits } from '../photoChoice';
+
+// The picker is on the cab form; what handles a picked photo loads when the first one is picked.
+const PhotoThumb = lazy(() => import('./PhotoThumb').then((module) => ({ default: module.PhotoThumb })));
+
+async function preparePhotos(picked: readonly File[], alreadyHeld: number, limits?: PhotoLimits) {
+  const [{ downscalePhoto }, { choosePhotos }] = await Promise.all([import('../photoScale'), import('../photoChoice')]);
+  return choosePhotos(await Promise.all(picked.map(downscalePhoto)), alreadyHeld, limits);
+}
 
 interface PhotoPickerProps {
   files: File[];
@@ -27,11 +33,13 @@ export function PhotoPicker({ files, onChange, held = 0, disabled, limits }: Pho
   return (
     <Stack gap="sm">
       {files.length > 0 && (
-        <Group gap="md" pt={10}>
-          {files.map((file, i) => (
-            <PhotoThumb key={`${file.name}-${file.lastModified}-${i}`} blob={file} alt={file.name} onRemove={() => onChange(files.filter((_, j) => j !== i))} />
-          ))}
-        </Group>
+        <Suspense fallback={null}>
+          <Group gap="md" pt={10}>
+            {files.map((file, i) => (
+              <PhotoThumb key={`${file.name}-${file.lastModified}-${i}`} blob={file} alt={file.name} onRemove={() => onChange(files.filter((_, j) => j !== i))} />
+            ))}
+          </Group>
+        </Suspense>
       )}
       <input
         ref={input}
@@ -46,12 +54,12 @@ export function PhotoPicker({ files, onChange, held = 0, disabled, limits }: Pho
           // The same photo can be picked again after it was removed.
           event.currentTarget.value = '';
           setPreparing(true);
-          void Promise.all(picked.map(downscalePhoto))
-            .then((scaled) => {
-              const choice = choosePhotos(scaled, held + files.length, limits);
+          void preparePhotos(picked, held + files.length, limits)
+            .then((choice) => {
               setRefused(choice.refused);
               if (choice.accepted.length > 0) onChange([...files, ...choice.accepted]);
             })
+            .catch(() => setRefused(['The photo could not be read on this phone. Try again.']))
             .finally(() => setPreparing(false));
         }}
       />
