@@ -151,6 +151,57 @@ describe('logging work from the cab', () => {
     });
   });
 
+  it('logs from inside the office app, checks a figure before sending, and changes the draft afterwards', async () => {
+    await inFreshPage(browser, DESKTOP, 'office-log-and-edit', async ({ page }) => {
+      const note = `Office pass ${crypto.randomUUID()}`;
+      await signInAndWait(page, DEMO_SIGN_INS.owner);
+      await page.goto(`${baseUrlOrThrow()}/work`);
+      // From the entries list the cab form opens inside the office frame, its navigation and user menu kept.
+      await page.getByRole('link', { name: 'Log work' }).click();
+      await page.getByTestId('entry-field').waitFor();
+      expect(await page.getByTestId('user-menu').count()).toBe(1);
+      await pick(page.getByTestId('entry-field'), 'Home West');
+      await pick(page.getByTestId('entry-work-type'), 'Grain cart');
+      await page.getByRole('button', { name: 'Hours', exact: true }).click();
+      expect(await page.getByRole('button', { name: 'Hours', exact: true }).getAttribute('aria-pressed')).toBe('true');
+      const hours = page.getByLabel('Machine hours');
+      await hours.fill('two and a half');
+      await page.getByLabel('Notes').fill(note);
+      const posts: string[] = [];
+      page.on('request', (r) => {
+        if (r.url().endsWith('/api/work-entries') && r.method() === 'POST') posts.push(r.url());
+      });
+      await page.getByRole('button', { name: 'Save as draft' }).click();
+      // The shared schema refuses the figure on the form itself; nothing is sent and nothing typed is lost.
+      await expect.poll(() => hours.getAttribute('aria-invalid')).toBe('true');
+      expect(posts).toEqual([]);
+      expect(await page.getByLabel('Notes').inputValue()).toBe(note);
+      await screenshot(page, 'office-log-refused-figure-owner-desktop');
+
+      await hours.fill('2.5');
+      const saved = page.waitForResponse((r) => r.url().endsWith('/api/work-entries') && r.request().method() === 'POST');
+      await page.getByRole('button', { name: 'Save as draft' }).click();
+      const created = (await (await saved).json()) as { id: string; hours: string; state: string };
+      expect(created).toMatchObject({ hours: '2.50', state: 'draft' });
+      await page.getByTestId('entry-saved').getByText('Saved as a draft').waitFor();
+
+      // The edit page uses the same fields and checks, and keeps what it does not change.
+      await page.goto(`${baseUrlOrThrow()}/work/${created.id}/edit`);
+      const editHours = page.getByLabel('Machine hours');
+      await expect.poll(() => editHours.inputValue()).toBe('2.50');
+      expect(await page.getByLabel('Notes').inputValue()).toBe(note);
+      await editHours.fill('3.25');
+      const changed = page.waitForResponse((r) => r.url().endsWith(`/api/work-entries/${created.id}`) && r.request().method() === 'PATCH');
+      await page.getByRole('button', { name: 'Save changes' }).click();
+      expect((await changed).status()).toBe(200);
+      await page.getByTestId('entry-saved').getByText('Saved as a draft').waitFor();
+      const owner = await apiToken(DEMO_SIGN_INS.owner);
+      const stored = await apiCall<{ hours: string; notes: string; state: string }>(owner, 'GET', `/api/work-entries/${created.id}`);
+      expect(stored).toMatchObject({ hours: '3.25', notes: note, state: 'draft' });
+      await screenshot(page, 'office-edit-saved-owner-desktop');
+    });
+  });
+
   it('lets the partner approve several submitted entries at once', async () => {
     const operator = await apiToken(DEMO_SIGN_INS.operator);
     const fields = await apiCall<{ items: Named[] }>(operator, 'GET', '/api/fields?pageSize=200');

@@ -44,7 +44,9 @@ function TimingChoice({ value, onChange }: { value: string; onChange: (timing: T
           key={timing.value}
           size={BIG}
           flex={1}
-          px="xs"
+          // Three labels side by side on a phone held upright.
+          px={4}
+          fz="md"
           variant={value === timing.value ? 'filled' : 'default'}
           aria-pressed={value === timing.value}
           onClick={() => onChange(timing.value)}
