@@ -230,7 +230,13 @@ export interface InvoiceDto extends InvoiceSummaryDto {
   issuer: PartySnapshotDto;
   party: PartySnapshotDto;
   lines: InvoiceLineDto[];
-  entries: InvoiceEntryDto[];
+  /** How many work entries the lines bill. */
+  entryCount: number;
+  /**
+   * The billed entries, in the customer's view only: the customer's page lists them, while the office reads
+   * the same dates, fields and quantities off the lines, so its answers (issuing 500 entries) stay half the size.
+   */
+  entries?: InvoiceEntryDto[];
   creditOf: { id: string; numberLabel: string | null } | null;
   creditNotes: Array<{ id: string; numberLabel: string | null; total: string; status: 'issued' | 'void' }>;
   /** The web page a customer opens to see and pay the invoice. */

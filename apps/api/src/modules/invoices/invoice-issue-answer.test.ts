@@ -85,9 +85,17 @@ describe('the answer to an issue', () => {
     expect(read.status).toBe(200);
     expect(issued.body).toEqual(read.body);
 
+    expect(issued.body.entryCount).toBe(5);
+    expect(issued.body).not.toHaveProperty('entries');
+
+    // The customer's view lists the billed entries, in the lines' order, with what the customer may see of each.
+    const customer = (await signIn(t, o.world.fx.members.customer.email)).token;
+    const theirs = await t.http().get(`/api/invoices/${d.id}`).set(bearer(customer));
+    expect(theirs.status).toBe(200);
     const creekPair = [ids[2], ids[3]].sort();
-    expect(issued.body.entries.map((e: { id: string }) => e.id)).toEqual([ids[4], ...creekPair, ids[1], ids[0]]);
-    expect(issued.body.entries[0]).toEqual({ id: ids[4], workDate: '2025-06-01', fieldName: 'Tamarack Road ditch', workTypeName: 'Roadside mowing', hours: '2.00', acres: null, miles: '2.500', loads: null, eachCount: null });
+    expect(theirs.body.entries.map((e: { id: string }) => e.id)).toEqual([ids[4], ...creekPair, ids[1], ids[0]]);
+    expect(theirs.body.entries[0]).toEqual({ id: ids[4], workDate: '2025-06-01', fieldName: 'Tamarack Road ditch', workTypeName: 'Roadside mowing', hours: '2.00', acres: null, miles: '2.500', loads: null, eachCount: null });
+    expect(theirs.body).toMatchObject({ entryCount: 5, lines: issued.body.lines });
   });
 });
 

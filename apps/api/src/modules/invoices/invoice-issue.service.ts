@@ -59,7 +59,7 @@ export class InvoiceIssueService {
       if (body.version !== undefined && body.version !== invoice.version) throw conflict('This draft was changed since you loaded it; reload it before issuing.');
       // Read for the answer on another connection while this transaction goes on: under the invoice's lock its
       // lines cannot change, its entries are held and cannot either, and issuing changes neither.
-      shown = this.views.linesAndEntries(operationId, id);
+      shown = this.views.linesAndEntries(wholeOperation(operationId), id);
       shown.catch(() => undefined);
 
       const counts = await this.repo.draftCounts(operationId, id, tx);

@@ -4,10 +4,16 @@ import type { InvoiceDto, InvoiceEntryDto } from '@hitchbook/shared/schemas/invo
 import { notFound } from '../../common/errors/app-error.js';
 import { APP_CONFIG, type AppConfig } from '../../core/config.js';
 import type { InvoiceScope } from '../customer-portal/invoice-scope.js';
-import { snapshotOf, toInvoiceDto } from './invoice.dto.js';
+import { billedEntryIds, snapshotOf, toInvoiceDto } from './invoice.dto.js';
 import { InvoicesRepository, type ShownLine } from './invoices.repository.js';
 
-export type LinesAndEntries = readonly [ShownLine[], InvoiceEntryDto[]];
+/** The lines as the invoice shows them, and the entries they bill when the caller's view lists them. */
+export type LinesAndEntries = readonly [ShownLine[], InvoiceEntryDto[] | null];
+
+/** A customer's page lists the entries billed to them; the office's pages show the lines only. */
+function listsEntries(scope: InvoiceScope): boolean {
+  return scope.partyId !== null;
+}
 
 /** Builds the full invoice as the caller may see it; anything outside the scope does not exist (404). */
 @Injectable()
@@ -33,11 +39,11 @@ export class InvoiceViews {
     return toInvoiceDto({ row, lines, entries, creditOf: creditOf ?? null, creditNotes, issuer, party, appUrl: this.config.appUrl });
   }
 
-  /** The invoice's lines as it shows them, and the entries they bill, read on the pool. */
-  async linesAndEntries(operationId: string, id: string, executor?: Executor): Promise<LinesAndEntries> {
-    const lines = await this.repo.shownLines(operationId, id, executor);
-    const entryIds = [...new Set(lines.map((l) => l.workEntryId).filter((e): e is string => e !== null))];
-    return [lines, await this.repo.entries(operationId, entryIds, executor)];
+  /** The invoice's lines as it shows them, and (for a customer's view) the entries they bill, read on the pool. */
+  async linesAndEntries(scope: InvoiceScope, id: string, executor?: Executor): Promise<LinesAndEntries> {
+    const lines = await this.repo.shownLines(scope.operationId, id, executor);
+    if (!listsEntries(scope)) return [lines, null];
+    return [lines, await this.repo.entries(scope.operationId, billedEntryIds(lines), executor)];
   }
 
   /**
@@ -49,7 +55,7 @@ export class InvoiceViews {
   private async parts(scope: InvoiceScope, id: string, executor: Executor | undefined, shown: Promise<LinesAndEntries> | undefined) {
     const { operationId } = scope;
     const summary = () => this.repo.summary(scope, id, executor);
-    const linesAndEntries = () => shown ?? this.linesAndEntries(operationId, id, executor);
+    const linesAndEntries = () => shown ?? this.linesAndEntries(scope, id, executor);
     const creditNotes = () => this.repo.creditNotesOf(operationId, id, executor);
     if (executor) return [await summary(), await linesAndEntries(), await creditNotes()] as const;
     return Promise.all([summary(), linesAndEntries(), creditNotes()]);

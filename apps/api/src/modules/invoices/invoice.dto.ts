@@ -39,7 +39,8 @@ export function toSummaryDto(row: InvoiceListRow): InvoiceSummaryDto {
 export interface InvoiceParts {
   row: InvoiceSummaryRow;
   lines: ShownLine[];
-  entries: InvoiceEntryDto[];
+  /** Null in the office's view, which does not list them. */
+  entries: InvoiceEntryDto[] | null;
   creditOf: Invoice | null;
   creditNotes: Invoice[];
   /** Printed details: the frozen snapshots once issued, the live ones for a draft. */
@@ -51,6 +52,11 @@ export interface InvoiceParts {
 /** The web page that shows a signed-in customer the invoice and its Pay button. */
 export function payUrlOf(appUrl: string, invoice: Pick<Invoice, 'id' | 'kind' | 'status'>): string | null {
   return invoice.kind === 'invoice' && invoice.status === 'issued' ? `${appUrl}/pay/${invoice.id}` : null;
+}
+
+/** The distinct work entries the lines bill, in line order. */
+export function billedEntryIds(lines: readonly Pick<ShownLine, 'workEntryId'>[]): string[] {
+  return [...new Set(lines.map((l) => l.workEntryId).filter((e): e is string => e !== null))];
 }
 
 export function toInvoiceDto(parts: InvoiceParts): InvoiceDto {
@@ -77,7 +83,8 @@ export function toInvoiceDto(parts: InvoiceParts): InvoiceDto {
       rate: l.rate,
       amount: l.amount,
     })),
-    entries: parts.entries,
+    entryCount: billedEntryIds(parts.lines).length,
+    ...(parts.entries ? { entries: parts.entries } : {}),
     creditOf: parts.creditOf ? { id: parts.creditOf.id, numberLabel: numberLabel(parts.creditOf.series, parts.creditOf.number) } : null,
     creditNotes: parts.creditNotes
       .filter((cn) => cn.status !== 'draft')

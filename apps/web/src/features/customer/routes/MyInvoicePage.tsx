@@ -62,7 +62,7 @@ export function MyInvoiceView({ invoice }: { invoice: InvoiceDto }) {
         </Grid.Col>
         <Grid.Col span={{ base: 12, md: 8 }} order={{ base: 2, md: 1 }}>
           <Stack gap="lg">
-            <WorkEntriesTable entries={invoice.entries} />
+            <WorkEntriesTable entries={invoice.entries ?? []} />
             <ChargesList lines={invoice.lines} title={invoice.kind === 'credit-note' ? 'What is credited' : 'What you are billed for'} />
             {invoice.notes && invoice.kind === 'invoice' && (
               <Text size="sm" style={{ whiteSpace: 'pre-wrap' }}>

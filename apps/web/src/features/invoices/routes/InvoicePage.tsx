@@ -117,7 +117,7 @@ function InvoiceView({ invoice, role }: { invoice: InvoiceDto; role: Role }) {
       <Stack gap="sm">
         <Group justify="space-between" gap="sm">
           <Title order={2} size="h4">
-            {invoice.entries.length > 0 ? `Lines for ${invoice.entries.length} work ${invoice.entries.length === 1 ? 'entry' : 'entries'}` : 'Lines'}
+            {invoice.entryCount > 0 ? `Lines for ${invoice.entryCount} work ${invoice.entryCount === 1 ? 'entry' : 'entries'}` : 'Lines'}
           </Title>
           {actions.editDraft && (
             <Group gap="xs">

@@ -4,7 +4,6 @@ import { IconPlus } from '@tabler/icons-react';
 import type { SessionUser } from '@hitchbook/shared/schemas/auth';
 import { FormGrid } from '../../../components/FormGrid';
 import { PageHeader } from '../../../components/PageHeader';
-import { QueryError } from '../../../components/QueryError';
 import { useAfterFirstPaint } from '../../../lib/afterFirstPaint';
 import { useLoaded } from '../../../lib/useLoaded';
 import type { SaveOutcome } from '../../offline/phoneQueue';
@@ -18,6 +17,8 @@ const loadQueuedPanel = () => import('../../offline/components/QueuedPanel');
 const SavedEntryPanel = lazy(() => loadSavedPanel().then((module) => ({ default: module.SavedEntryPanel })));
 const QueuedPanel = lazy(() => loadQueuedPanel().then((module) => ({ default: module.QueuedPanel })));
 const PhoneQueueStatus = lazy(() => import('../../offline/components/PhoneQueueStatus').then((module) => ({ default: module.PhoneQueueStatus })));
+// Only a failed read shows it.
+const QueryError = lazy(() => import('../../../components/QueryError').then((module) => ({ default: module.QueryError })));
 const PhoneQueueList = lazy(() => import('../../offline/components/PhoneQueueList').then((module) => ({ default: module.PhoneQueueList })));
 
 const working = (
@@ -79,7 +80,9 @@ export function LogWorkPanel({ user, seeEntries, onSaved }: LogWorkPanelProps) {
           {saved.kind === 'saved' ? <SavedEntryPanel entry={saved.entry}>{nextPass}</SavedEntryPanel> : <QueuedPanel>{nextPass}</QueuedPanel>}
         </Suspense>
       ) : error ? (
-        <QueryError error={error} onRetry={retry} />
+        <Suspense fallback={null}>
+          <QueryError error={error} onRetry={retry} />
+        </Suspense>
       ) : options ? (
         <NewEntryForm
           key={pass}
