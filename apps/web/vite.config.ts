@@ -92,13 +92,13 @@ export default defineConfig(({ mode }) => ({
           groups: [
             { name: 'mantine-core', test: /@mantine[\\/]core[\\/]esm[\\/](core(?![\\/](utils[\\/](create-scoped-keydown-handler|close-on-escape|find-element-ancestor|get-context-item-index|use-hovered|get-default-z-index)|MantineProvider[\\/]use-mantine-color-scheme)[\\/])|components[\\/](Input|InputBase|TextInput|Anchor|UnstyledButton|Loader|Transition|CloseButton|Alert|Text|Button|Stack|Title|Group|Paper|Center|Container))[\\/]|@tabler[\\/]icons-react[\\/]dist[\\/]esm[\\/](createReactComponent|defaultAttributes)\.mjs$|src[\\/](components[\\/](FormErrorAlert|DatabaseDownNotice)|lib[\\/]serverIssues|theme|app[\\/](ErrorBoundary|layout[\\/]BrandLockup))\.tsx?$/ },
             // What the cab form needs to draw itself, beyond React and Mantine's core: one chunk compresses better
-            // than the dozen small ones the splitter would make of it. Office pages that use the entry form's
-            // pieces (the entries list, the edit page) load it too.
+            // than the dozen small ones the splitter would make of it. The office frame loads it too (it shares the
+            // queue's sync, the page header and the areas map), so it is a chunk of the signed-in app.
             {
               name: 'cab-form',
               // Only the modules named: React, Mantine's core and the app's shared code stay where the sign-in page gets them.
               includeDependenciesRecursively: false,
-              test: /src[\\/](features[\\/]work[\\/](components[\\/](LogWorkPanel|NewEntryForm|EntryFields|EntryActions)|useEntryForm|entryForm|quantity|pickers|lastUsed|clientId|loadEntryOptions|entrySchema|api[\\/](listMachineOptions|listFieldOptions|listWorkTypes|listBillToParties|listMembers|lastMeterReading))|features[\\/]offline[\\/](phoneQueue|photoBudget|networkMode|components[\\/]PhoneQueueSync)|lib[\\/](useLoaded|lazySchema|localTime|afterFirstPaint|areas)|components[\\/](FormGrid|PageHeader|DecimalInput))\.tsx?$|@mantine[\\/]core[\\/]esm[\\/]components[\\/](NativeSelect[\\/]|Combobox[\\/](ComboboxChevron[\\/]|Combobox\.module\.css|get-parsed-combobox-data[\\/]))|@tabler[\\/]icons-react[\\/]dist[\\/]esm[\\/]icons[\\/]Icon(Camera|List|Plus|Send|DeviceFloppy)\.mjs$/,
+              test: /src[\\/](features[\\/]work[\\/](components[\\/](LogWorkPanel|NewEntryForm|EntryFields|EntryActions)|useEntryForm|entryForm|quantity|pickers|lastUsed|clientId|loadEntryOptions|entrySchema|api[\\/](listMachineOptions|listFieldOptions|listWorkTypes|listBillToParties|listMembers|lastMeterReading))|features[\\/]offline[\\/](phoneQueue|photoBudget|networkMode|components[\\/]PhoneQueueSync)|lib[\\/](useLoaded|lazySchema|localTime|afterFirstPaint|areas)|components[\\/](FormGrid|PageHeader|DecimalInput))\.tsx?$|@mantine[\\/]core[\\/]esm[\\/]components[\\/](NativeSelect[\\/]|Combobox[\\/](ComboboxChevron[\\/]|Combobox\.module\.css|get-parsed-combobox-data[\\/]))|@tabler[\\/]icons-react[\\/]dist[\\/]esm[\\/]icons[\\/]Icon(List|Plus|Send|DeviceFloppy)\.mjs$/,
             },
             { name: 'query', test: /@tanstack[\\/](query-core|react-query)[\\/]/ },
           ],

@@ -2,7 +2,7 @@ import { useState, type FormEvent } from 'react';
 import { useForm, type FormErrors } from '@mantine/form';
 import type { UseMutationResult } from '@tanstack/react-query';
 import { useSchema, type SchemaSource } from './lazySchema';
-import { hasPath, placeServerIssues, remapErrors, samePath, schemaErrors, type IssuePathMap } from './serverIssues';
+import { placeServerIssues, remapErrors, samePath, schemaErrors, unplacedIssues, type IssuePathMap } from './serverIssues';
 
 // Mantine's own constraint; unlike Record<string, unknown> it also accepts plain interfaces.
 type FormValues = Record<string, any>;
@@ -29,7 +29,7 @@ export function useServerForm<Values extends FormValues, Payload, Result>(
   options: ServerFormOptions<Values, Payload, Result>,
 ) {
   const { schema, initialValues, toPayload, mutation, onSuccess, check, issuePath = samePath } = options;
-  const { loaded, load } = useSchema(schema);
+  const { loaded, whenLoaded } = useSchema(schema);
   const form = useForm<Values>({
     mode: 'controlled',
     initialValues,
@@ -61,24 +61,12 @@ export function useServerForm<Values extends FormValues, Payload, Result>(
         },
       });
     },
-    // A rule about the request as a whole (or a hidden field) has no input to show it under.
-    (errors, values) => {
-      const unplaced = Object.entries(errors)
-        .filter(([path, message]) => message && !hasPath(values, path))
-        .map(([, message]) => String(message));
-      setFormError(unplaced.length > 0 ? unplaced.join(' ') : null);
-    },
+    (errors, values) => setFormError(unplacedIssues(errors, values)),
   );
 
   const onSubmit = (event?: FormEvent<HTMLFormElement>) => {
-    if (loaded.current) return submit(event);
     event?.preventDefault();
-    // Should the schema's chunk not load (no signal, no service worker yet), the entry is still sent or
-    // queued: the server checks it against the same schema either way.
-    void load().then(
-      () => submit(),
-      () => submit(),
-    );
+    whenLoaded(() => submit());
   };
 
   return { form, onSubmit, formError, submitting: mutation.isPending };

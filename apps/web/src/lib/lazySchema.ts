@@ -19,5 +19,13 @@ export function useSchema(source: SchemaSource) {
     void load();
     // The source is fixed for the form's life.
   }, []);
-  return { loaded, load };
+  /**
+   * Runs a submit once the schema is here. Should its chunk not load (no signal, no service worker yet), the
+   * submit goes ahead all the same: the server checks the request against the same schema either way.
+   */
+  const whenLoaded = (submit: () => void) => {
+    if (loaded.current) submit();
+    else void load().then(submit, submit);
+  };
+  return { loaded, whenLoaded };
 }

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import './zod-no-eval';
 import { ApiError } from './api';
-import { placeServerIssues, schemaErrors } from './serverIssues';
+import { placeServerIssues, schemaErrors, unplacedIssues } from './serverIssues';
 
 const values = { listPrice: '', members: [{ name: 'Hill place', ownershipPct: '60' }] };
 
@@ -71,5 +71,19 @@ describe('schema issues as the forms show them', () => {
   it('keeps the last issue when one field breaks two rules, as the form shows one message', () => {
     const twice = z.strictObject({ code: z.string().min(3, { message: 'Too short.' }).regex(/^[a-z]+$/, { message: 'Letters only.' }) });
     expect(schemaErrors(twice, { code: '1' })).toEqual({ code: 'Letters only.' });
+  });
+});
+
+describe('issues no field can show', () => {
+  const values = { name: 'Hill place', members: [{ sharePct: '60' }] };
+
+  it('joins the messages whose path names no field of the form, and leaves out those a field shows', () => {
+    expect(unplacedIssues({ name: 'Required.', 'members.0.sharePct': 'Whole percent.', period: 'The period ends before it starts.', clientId: 'Missing.' }, values)).toBe(
+      'The period ends before it starts. Missing.',
+    );
+  });
+
+  it('gives no banner when every message has its field', () => {
+    expect(unplacedIssues({ name: 'Required.', 'members.0.sharePct': 'Whole percent.' }, values)).toBeNull();
   });
 });

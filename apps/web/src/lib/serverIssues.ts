@@ -59,3 +59,11 @@ export function remapErrors<Values>(errors: FieldErrors, issuePath: IssuePathMap
   for (const [path, message] of Object.entries(errors)) mapped[issuePath(path, values)] ??= message;
   return mapped;
 }
+
+/** The messages of a failed check that no field on the form can show (a rule about the whole request, a hidden field), as one banner. */
+export function unplacedIssues(errors: FieldErrors, values: unknown): string | null {
+  const unplaced = Object.entries(errors)
+    .filter(([path, message]) => message && !hasPath(values, path))
+    .map(([, message]) => String(message));
+  return unplaced.length > 0 ? unplaced.join(' ') : null;
+}

@@ -6,6 +6,7 @@ import { billingState, contiguous } from '../../test-support/billing-invariants.
 import { createOperation, signInAll, type OperationFixture } from '../../test-support/fixtures.js';
 import { createTestApp, type TestApp } from '../../test-support/test-app.js';
 import { addEntry, addNeighbourSheet, createBillingWorld, type BillingWorld } from './billing-world.fixture.js';
+import { billedEntryIds } from './invoice.dto.js';
 
 let t: TestApp;
 const bearer = (token: string) => ({ Authorization: `Bearer ${token}` });
@@ -123,15 +124,14 @@ describe('issuing an invoice', () => {
     const results = await Promise.all(windows.map(([a, b]) => t.http().post('/api/invoices/drafts').set(bearer(o.tokens.owner)).send({ partyId: o.neighbour, from: days[a], to: days[b] })));
 
     expect(results.map((r) => r.status).filter((s) => ![201, 400, 409].includes(s))).toEqual([]);
-    const billedBy = (body: { lines: Array<{ workEntryId: string | null }> }) => [...new Set(body.lines.map((l) => l.workEntryId).filter((e): e is string => e !== null))];
-    const made = results.filter((r) => r.status === 201).map((r) => ({ id: r.body.id as string, covers: billedBy(r.body) }));
+    const made = results.filter((r) => r.status === 201).map((r) => ({ id: r.body.id as string, covers: billedEntryIds(r.body.lines) }));
     expect(made.length).toBeGreaterThan(0);
     // A draft made after others committed bills only what they left in its days.
     for (const [i, r] of results.entries()) {
       if (r.status !== 201) continue;
       const [a, b] = windows[i]!;
       const inWindow = new Set(days.slice(a, b + 1).map((d) => entryOn.get(d)));
-      for (const e of billedBy(r.body)) expect(inWindow.has(e)).toBe(true);
+      for (const e of billedEntryIds(r.body.lines)) expect(inWindow.has(e)).toBe(true);
     }
     const billed = made.flatMap((d) => d.covers);
     expect(new Set(billed).size).toBe(billed.length);

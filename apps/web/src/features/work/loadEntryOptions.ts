@@ -1,4 +1,6 @@
 import type { Role } from '@hitchbook/shared/roles';
+import type { SessionUser } from '@hitchbook/shared/schemas/auth';
+import { useLoaded } from '../../lib/useLoaded';
 import { listBillToParties } from './api/listBillToParties';
 import { listFieldOptions } from './api/listFieldOptions';
 import { listMachineOptions } from './api/listMachineOptions';
@@ -7,9 +9,9 @@ import { listWorkTypes } from './api/listWorkTypes';
 import type { EntryOptions } from './components/EntryFields';
 
 /**
- * Everything the cab form picks from, read together without the query cache (useEntryOptions is the
- * office pages' version of the same reads). Only an owner picks the operator: a partner or an operator
- * logs their own work, and the server fills them in.
+ * Everything the entry forms pick from, read together without the query cache, so the cab page can read it
+ * too. Only an owner picks the operator: a partner or an operator logs their own work, and the server fills
+ * them in.
  */
 export async function loadEntryOptions(role: Role, signal: AbortSignal): Promise<EntryOptions> {
   const [machines, fields, workTypes, parties, operators] = await Promise.all([
@@ -20,4 +22,9 @@ export async function loadEntryOptions(role: Role, signal: AbortSignal): Promise
     role === 'owner' ? listMembers(signal).then(activeOperators) : null,
   ]);
   return { machines, fields, workTypes, parties, operators };
+}
+
+/** The entry forms' pickers for the signed-in person, read again only when the operation or role changes. */
+export function useEntryOptions(user: Pick<SessionUser, 'operationId' | 'role'>) {
+  return useLoaded(`${user.operationId}:${user.role}`, (signal) => loadEntryOptions(user.role, signal));
 }

@@ -1,6 +1,6 @@
 import { useRef, useState, type FormEvent, type ReactNode } from 'react';
 import { useSchema, type SchemaSource } from '../../lib/lazySchema';
-import { hasPath, placeServerIssues, remapErrors, schemaErrors, type FieldErrors } from '../../lib/serverIssues';
+import { placeServerIssues, remapErrors, schemaErrors, unplacedIssues, type FieldErrors } from '../../lib/serverIssues';
 import { entryIssuePath, type EntryFormValues } from './entryForm';
 
 type EntryField = keyof EntryFormValues;
@@ -43,7 +43,7 @@ function typedValue(valueOrEvent: unknown): string {
  * mutation. The cab page loads neither, so a phone with one bar gets a form it can fill in sooner.
  */
 export function useEntryForm<Payload, Result>({ schema, initialValues, toPayload, send, onSuccess }: EntryFormOptions<Payload, Result>) {
-  const { loaded, load } = useSchema(schema);
+  const { loaded, whenLoaded } = useSchema(schema);
   const [values, setValues] = useState(initialValues);
   // Several fields change in one handler (a picked field fills its acres); each change builds on the last.
   const current = useRef(values);
@@ -85,11 +85,7 @@ export function useEntryForm<Payload, Result>({ schema, initialValues, toPayload
     const found = check(sent);
     if (Object.keys(found).length > 0) {
       setErrorsState(found);
-      // A rule about the request as a whole (or a hidden field) has no input to show it under.
-      const unplaced = Object.entries(found)
-        .filter(([path, message]) => message && !hasPath(sent, path))
-        .map(([, message]) => String(message));
-      setFormError(unplaced.length > 0 ? unplaced.join(' ') : null);
+      setFormError(unplacedIssues(found, sent));
       return;
     }
     setFormError(null);
@@ -110,11 +106,7 @@ export function useEntryForm<Payload, Result>({ schema, initialValues, toPayload
 
   const onSubmit = (event?: FormEvent<HTMLFormElement>) => {
     event?.preventDefault();
-    if (submitting) return;
-    // Should the schema's chunk not load (no signal, no service worker yet), the entry is still sent or
-    // queued: the server checks it against the same schema either way.
-    if (loaded.current) submitNow();
-    else void load().then(submitNow, submitNow);
+    if (!submitting) whenLoaded(submitNow);
   };
 
   return { form, onSubmit, formError, submitting };

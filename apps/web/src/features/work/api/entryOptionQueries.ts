@@ -7,8 +7,8 @@ import { ACTIVE_MACHINES, listMachineOptions } from './listMachineOptions';
 import { activeOperators, listMembers, MEMBER_READERS } from './listMembers';
 import { listWorkTypes } from './listWorkTypes';
 
-// The office pages' cached versions of the entry form's reads. The reads themselves stay in their own
-// files, free of the query library, so the cab page (app/cab) can make them without loading it.
+// The entries list's filters, cached: the same reads the entry forms make (loadEntryOptions). The reads stay in
+// their own files, free of the query library, so the cab page (app/cab) can make them without loading it.
 
 export function useMachineOptions() {
   return useQuery(

@@ -5,9 +5,8 @@ import type { SessionUser } from '@hitchbook/shared/schemas/auth';
 import { FormGrid } from '../../../components/FormGrid';
 import { PageHeader } from '../../../components/PageHeader';
 import { useAfterFirstPaint } from '../../../lib/afterFirstPaint';
-import { useLoaded } from '../../../lib/useLoaded';
 import type { SaveOutcome } from '../../offline/phoneQueue';
-import { loadEntryOptions } from '../loadEntryOptions';
+import { useEntryOptions } from '../loadEntryOptions';
 import { NewEntryForm } from './NewEntryForm';
 
 // The form comes first on a weak connection. The queue's status and list (which wait for the queue in
@@ -39,7 +38,7 @@ interface LogWorkPanelProps {
  * so the cab page can show it on its own (app/cab) and the office app inside its frame.
  */
 export function LogWorkPanel({ user, seeEntries, onSaved }: LogWorkPanelProps) {
-  const { data: options, error, retry } = useLoaded(`${user.operationId}:${user.role}`, (signal) => loadEntryOptions(user.role, signal));
+  const { data: options, error, retry } = useEntryOptions(user);
   const [saved, setSaved] = useState<SaveOutcome | null>(null);
   // Each pass is a fresh form with a fresh device id; the count only remounts it.
   const [pass, setPass] = useState(0);

@@ -16,7 +16,7 @@ import { EditEntryForm } from '../components/EditEntryForm';
 import { EntryPhotoGallery } from '../components/EntryPhotoGallery';
 import { SavedEntryPanel } from '../components/SavedEntryPanel';
 import { STATE_LABELS } from '../labels';
-import { useEntryOptions } from '../useEntryOptions';
+import { useEntryOptions } from '../loadEntryOptions';
 
 const EDITABLE = new Set(['draft', 'submitted']);
 
@@ -24,7 +24,7 @@ export function Component() {
   const { entryId = '' } = useParams();
   const user = useSessionUserOrThrow();
   const entry = useWorkEntry(entryId);
-  const { options, error, retry } = useEntryOptions(user.role);
+  const { data: options, error, retry } = useEntryOptions(user);
   const [saved, setSaved] = useState<WorkEntryWithWarnings | null>(null);
 
   if (accessTo(user.role, 'work') !== 'manage') return <NotAllowed />;
